@@ -1,0 +1,115 @@
+package main
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"strconv"
+	"strings"
+
+	"isofield/interp"
+	"isofield/survey/pipeline"
+)
+
+// surveyFlags are the flags shared by every command that reads and grids
+// survey files. They fill a pipeline.Config.
+type surveyFlags struct {
+	cfg       pipeline.Config
+	kernel    string
+	smoothing string
+	shape     string
+	method    string
+	session   bool // read and write the session file beside the first input
+}
+
+// newFlagSet returns a flag set that prints its usage to w and never exits.
+func newFlagSet(name, args, summary string, w io.Writer) *flag.FlagSet {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	fs.SetOutput(w)
+	fs.Usage = func() {
+		fmt.Fprintf(w, "usage: isofield %s %s\n\n%s\n\nflags:\n", name, args, summary)
+		fs.PrintDefaults()
+	}
+	return fs
+}
+
+// register adds the shared flags to fs.
+func (f *surveyFlags) register(fs *flag.FlagSet) {
+	c := &f.cfg
+	fs.StringVar(&c.Load.Units, "units", "", "potential unit of files whose header states none: `V|mV`")
+	fs.Float64Var(&c.Load.LineSpacing, "line-spacing", 0, "metres between survey lines, for files with line and station numbers")
+	fs.Float64Var(&c.Load.StationSpacing, "station-spacing", 0, "metres between stations along a line")
+	fs.BoolVar(&c.Load.LinesAlongY, "lines-along-y", false, "survey lines run along y (stations count northwards)")
+	fs.Float64Var(&c.Spacing, "spacing", 0, "grid spacing in `METRES` (default: about 150 nodes along the longer side)")
+	fs.Float64Var(&c.MaskDistance, "mask", 0, "blank nodes farther than `METRES` from any reading (default: from the readings' spacing; negative: none)")
+	fs.Float64Var(&c.Interval, "interval", 0, "contour interval in the potential unit (default: a round interval giving 8 to 15 bands)")
+	fs.BoolVar(&c.UseSuspects, "use-suspects", false, "grid suspect readings too (excluded readings never)")
+	fs.StringVar(&f.kernel, "kernel", "thin-plate", "radial basis `KERNEL`: thin-plate, cubic, multiquadric, inverse-multiquadric, gaussian, wendland-c2, wendland-c4")
+	fs.StringVar(&f.smoothing, "smoothing", "0", "smoothing λ: auto or a `VALUE` ≥ 0")
+	fs.StringVar(&f.shape, "shape", "auto", "shape parameter ε of kernels that have one: auto or a `VALUE` > 0")
+	fs.StringVar(&f.method, "method", "auto", "fit `METHOD`: auto, global or local (partition of unity)")
+	addQAFlags(fs, &c.QA)
+	addCriteriaFlags(fs, &c.Criteria)
+}
+
+// parse parses args and completes the config. It returns errHelp after
+// printing help, and usageError for bad flags.
+func (f *surveyFlags) parse(fs *flag.FlagSet, args []string) error {
+	if err := fs.Parse(args); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return errHelp
+		}
+		return usageError{err}
+	}
+	f.cfg.Files = fs.Args()
+	if err := f.fitOptions(); err != nil {
+		return usageError{err}
+	}
+	if u := f.cfg.Load.Units; u != "" && u != "V" && u != "mV" {
+		return usageError{fmt.Errorf("--units %q: want V or mV", u)}
+	}
+	if f.cfg.Spacing < 0 {
+		return usageError{fmt.Errorf("--spacing %g: must be positive", f.cfg.Spacing)}
+	}
+	return nil
+}
+
+// fitOptions translates the kernel, smoothing, shape and method flags.
+func (f *surveyFlags) fitOptions() error {
+	o := &f.cfg.Fit
+	k, err := interp.ParseKernel(f.kernel)
+	if err != nil {
+		return fmt.Errorf("--kernel: %w", err)
+	}
+	o.Kernel = k
+	if o.AutoSmoothing, o.Smoothing, err = autoOrValue(f.smoothing, 0); err != nil {
+		return fmt.Errorf("--smoothing: %w", err)
+	}
+	if o.AutoShape, o.Shape, err = autoOrValue(f.shape, 1e-300); err != nil {
+		return fmt.Errorf("--shape: %w", err)
+	}
+	switch strings.ToLower(f.method) {
+	case "auto", "":
+		o.Method = interp.Auto
+	case "global":
+		o.Method = interp.Global
+	case "local":
+		o.Method = interp.Local
+	default:
+		return fmt.Errorf("--method %q: want auto, global or local", f.method)
+	}
+	return nil
+}
+
+// autoOrValue reads "auto" or a number no smaller than lo.
+func autoOrValue(s string, lo float64) (auto bool, v float64, err error) {
+	if strings.EqualFold(s, "auto") {
+		return true, 0, nil
+	}
+	v, err = strconv.ParseFloat(s, 64)
+	if err != nil || v < lo || v != v || v > 1e300 {
+		return false, 0, fmt.Errorf("%q is neither auto nor a valid number", s)
+	}
+	return false, v, nil
+}

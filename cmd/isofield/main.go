@@ -1,0 +1,131 @@
+// Command isofield checks, grids and maps electric-potential surveys made
+// with probes: half-cell potential mapping, surface and step potentials of
+// grounding tests, self-potential and cathodic-protection surveys.
+//
+// Without arguments it opens the terminal UI on the built-in demo survey.
+// See "isofield help" for the subcommands.
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+)
+
+// version is set at build time with -ldflags "-X main.version=...".
+var version = "0.1.0-dev"
+
+// Exit codes.
+const (
+	exitOK      = 0
+	exitInput   = 1 // bad input file or failed run
+	exitUsage   = 2 // bad command line
+	exitStrict  = 3 // check --strict found suspects
+	exitAborted = 130
+)
+
+// command is one subcommand.
+type command struct {
+	name    string
+	summary string
+	run     func(env *env, args []string) error
+}
+
+// env carries the program's streams so tests can run commands in-process.
+type env struct {
+	stdin          io.Reader
+	stdout, stderr io.Writer
+}
+
+func commands() []command {
+	return []command{
+		{"view", "open the terminal UI on survey files (default: the demo)", runView},
+		{"grid", "interpolate readings and write the grid CSV", runGrid},
+		{"check", "print the quality report of the readings", runCheck},
+		{"clean", "write every reading with its corrected value and status", runClean},
+		{"zones", "list the zones that break the criterion", runZones},
+		{"suggest", "suggest where to take more readings", runSuggest},
+		{"export", "write cleaned readings, grids, contours, zones, maps and report", runExport},
+		{"report", "write the survey report as one HTML file", runReport},
+		{"demo", "write the built-in demo survey as CSV", runDemo},
+		{"version", "print the version", runVersion},
+		{"help", "show help for a command", nil},
+	}
+}
+
+func main() {
+	os.Exit(run(&env{stdin: os.Stdin, stdout: os.Stdout, stderr: os.Stderr}, os.Args[1:]))
+}
+
+// run executes one command line and returns the exit code.
+func run(e *env, args []string) int {
+	if len(args) == 0 {
+		return report(e, runView(e, nil))
+	}
+	name, rest := args[0], args[1:]
+	switch name {
+	case "help", "-h", "--help":
+		if len(rest) > 0 {
+			return run(e, []string{rest[0], "--help"})
+		}
+		usage(e.stdout)
+		return exitOK
+	case "-v", "--version":
+		name = "version"
+	}
+	for _, c := range commands() {
+		if c.name == name && c.run != nil {
+			return report(e, c.run(e, rest))
+		}
+	}
+	fmt.Fprintf(e.stderr, "isofield: unknown command %q (see isofield help)\n", name)
+	return exitUsage
+}
+
+func usage(w io.Writer) {
+	fmt.Fprintf(w, "isofield %s: check, grid and map electric-potential surveys\n\n", version)
+	fmt.Fprintln(w, "usage: isofield [COMMAND] [FLAGS] [FILES...]")
+	fmt.Fprintln(w, "\nWithout a command, isofield opens the terminal UI on the built-in demo survey.")
+	fmt.Fprintln(w, "\ncommands:")
+	for _, c := range commands() {
+		fmt.Fprintf(w, "  %-8s %s\n", c.name, c.summary)
+	}
+	fmt.Fprintln(w, "\nRun \"isofield COMMAND --help\" for a command's flags.")
+}
+
+// usageError marks an error in the command line (exit 2).
+type usageError struct{ err error }
+
+func (u usageError) Error() string { return u.err.Error() }
+func (u usageError) Unwrap() error { return u.err }
+
+// exitError carries a specific exit code without a message of its own.
+type exitError struct{ code int }
+
+func (x exitError) Error() string { return fmt.Sprintf("exit %d", x.code) }
+
+// errHelp is returned after a command printed its help.
+var errHelp = errors.New("help shown")
+
+// report prints err on stderr in one line and maps it to an exit code.
+func report(e *env, err error) int {
+	var ue usageError
+	var xe exitError
+	switch {
+	case err == nil, errors.Is(err, errHelp):
+		return exitOK
+	case errors.As(err, &xe):
+		return xe.code
+	case errors.As(err, &ue):
+		fmt.Fprintf(e.stderr, "isofield: %v\n", err)
+		return exitUsage
+	}
+	fmt.Fprintf(e.stderr, "isofield: %v\n", err)
+	return exitInput
+}
+
+func runVersion(e *env, args []string) error {
+	fmt.Fprintf(e.stdout, "isofield %s\n", version)
+	return nil
+}
