@@ -1,6 +1,42 @@
 package main
 
-import "errors"
+import (
+	"fmt"
+	"io"
 
-// TEMPORARY: replaced by the demo command.
-func runDemo(e *env, args []string) error { return errors.New("demo: not implemented yet") }
+	"isofield/survey"
+	"isofield/survey/demo"
+	"isofield/survey/fileout"
+)
+
+const demoSummary = `Write the built-in demo survey (a fictional current-injection test at
+Fernhollow yard) as CSV, to show the input format isofield reads.`
+
+func runDemo(e *env, args []string) error {
+	var out string
+	var force bool
+	fs := newFlagSet("demo", "[-o FILE.csv]", demoSummary, e.stderr)
+	fs.StringVar(&out, "o", "", "write to `FILE` (atomically) instead of standard output")
+	fs.BoolVar(&force, "force", false, "overwrite an existing output file")
+	if err := parseFlags(fs, args); err != nil {
+		return err
+	}
+	if fs.NArg() > 0 {
+		return usageError{fmt.Errorf("demo: unexpected argument %q", fs.Arg(0))}
+	}
+	s := demo.Survey()
+	write := func(w io.Writer) error { return writeSurveyCSV(w, s) }
+	if out == "" {
+		return write(e.stdout)
+	}
+	return fileout.Write(out, fileout.Options{Force: force}, write)
+}
+
+// writeSurveyCSV is TEMPORARY until survey.WriteCSV lands.
+func writeSurveyCSV(w io.Writer, s *survey.Survey) error {
+	fmt.Fprintln(w, "id,x_m,y_m,potential_"+s.Unit.String()+",time,line,station,note")
+	for _, r := range s.Readings {
+		fmt.Fprintf(w, "%s,%g,%g,%g,%s,%s,%s,%s\n", r.ID, r.X, r.Y, r.V, r.Time.Format("2006-01-02T15:04:05Z07:00"), r.Line, r.Station, r.Note)
+	}
+	return nil
+}

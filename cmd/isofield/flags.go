@@ -113,3 +113,14 @@ func autoOrValue(s string, lo float64) (auto bool, v float64, err error) {
 	}
 	return false, v, nil
 }
+
+// parseFlags parses args for commands without the shared survey flags.
+func parseFlags(fs *flag.FlagSet, args []string) error {
+	if err := fs.Parse(args); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return errHelp
+		}
+		return usageError{err}
+	}
+	return nil
+}

@@ -1,6 +1,66 @@
 package main
 
-import "errors"
+import (
+	"context"
+	"fmt"
+	"io"
+	"math"
 
-// TEMPORARY: replaced by the grid command.
-func runGrid(e *env, args []string) error { return errors.New("grid: not implemented yet") }
+	"isofield/survey/export"
+	"isofield/survey/fileout"
+	"isofield/survey/pipeline"
+)
+
+const gridSummary = `Interpolate the readings of one or more survey files with radial basis
+functions and write the grid as CSV, one row per node:
+
+  x_m,y_m,potential_U,ex_U_per_m,ey_U_per_m,field_U_per_m,flagged
+
+U is the potential unit of the input (V or mV). Coordinates are in the
+input's own system. (ex, ey) = E = −∇V comes from the analytic gradient of
+the interpolant. Masked nodes (too far from any reading) keep x and y and
+leave the other cells empty. flagged is 1 where the field reaches
+--threshold (or the preset's criterion), else 0. Columns after flagged may
+be added by presets; the first seven never change.`
+
+func runGrid(e *env, args []string) error {
+	var sf surveyFlags
+	var out string
+	var force bool
+	fs := newFlagSet("grid", "[flags] FILE.csv [FILE.csv...]", gridSummary, e.stderr)
+	sf.register(fs)
+	fs.StringVar(&out, "o", "", "write the grid to `FILE` (atomically) instead of standard output")
+	fs.BoolVar(&force, "force", false, "overwrite an existing output file")
+	if err := sf.parse(fs, args); err != nil {
+		return err
+	}
+	if len(sf.cfg.Files) == 0 {
+		return usageError{fmt.Errorf("grid: no input file (see isofield grid --help)")}
+	}
+	res, err := pipeline.Run(context.Background(), sf.cfg, nil)
+	if err != nil {
+		return err
+	}
+	write := func(w io.Writer) error { return writeGrid(w, res, sf.cfg) }
+	if out == "" {
+		return write(e.stdout)
+	}
+	return fileout.Write(out, fileout.Options{Force: force, Inputs: sf.cfg.Files}, write)
+}
+
+// writeGrid writes the grid CSV of a pipeline result.
+func writeGrid(w io.Writer, res *pipeline.Result, cfg pipeline.Config) error {
+	g := res.Grid
+	flagged := make([]bool, g.Len())
+	if t := cfg.Criteria.FieldThreshold; t > 0 {
+		for k := range flagged {
+			if !g.Mask[k] && math.Hypot(g.GX[k], g.GY[k]) >= t {
+				flagged[k] = true
+			}
+		}
+	}
+	return export.WriteGridCSV(w, g, res.Survey.Unit.String(), flagged, gridColumns(res))
+}
+
+// gridColumns returns the columns appended after the fixed ones.
+func gridColumns(res *pipeline.Result) []export.Column { return nil }

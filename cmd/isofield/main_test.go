@@ -1,0 +1,115 @@
+package main
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// runArgs runs one command line in-process and returns its exit code and
+// streams.
+func runArgs(args ...string) (code int, stdout, stderr string) {
+	var o, e bytes.Buffer
+	code = run(&env{stdin: strings.NewReader(""), stdout: &o, stderr: &e}, args)
+	return code, o.String(), e.String()
+}
+
+func TestUsage(t *testing.T) {
+	tests := []struct {
+		name       string
+		args       []string
+		code       int
+		stdoutHas  string
+		stderrHas  string
+		emptyError bool
+	}{
+		{name: "help", args: []string{"help"}, code: 0, stdoutHas: "commands:", emptyError: true},
+		{name: "version", args: []string{"version"}, code: 0, stdoutHas: "isofield " + version, emptyError: true},
+		{name: "--version", args: []string{"--version"}, code: 0, stdoutHas: "isofield " + version, emptyError: true},
+		{name: "unknown command", args: []string{"frobnicate"}, code: exitUsage, stderrHas: `unknown command "frobnicate"`},
+		{name: "grid help", args: []string{"grid", "--help"}, code: 0, stderrHas: "x_m,y_m,potential_U"},
+		{name: "help grid", args: []string{"help", "grid"}, code: 0, stderrHas: "usage: isofield grid"},
+		{name: "grid bad flag", args: []string{"grid", "--no-such-flag", "a.csv"}, code: exitUsage, stderrHas: "no-such-flag"},
+		{name: "grid no file", args: []string{"grid"}, code: exitUsage, stderrHas: "no input file"},
+		{name: "grid bad units", args: []string{"grid", "--units", "kV", "a.csv"}, code: exitUsage, stderrHas: "--units"},
+		{name: "grid bad method", args: []string{"grid", "--method", "best", "a.csv"}, code: exitUsage, stderrHas: "--method"},
+		{name: "grid bad smoothing", args: []string{"grid", "--smoothing", "-1", "a.csv"}, code: exitUsage, stderrHas: "--smoothing"},
+		{name: "demo extra arg", args: []string{"demo", "x"}, code: exitUsage, stderrHas: "unexpected argument"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			code, out, errs := runArgs(tt.args...)
+			if code != tt.code {
+				t.Errorf("isofield %v exit = %d, want %d (stderr %q)", tt.args, code, tt.code, errs)
+			}
+			if !strings.Contains(out, tt.stdoutHas) {
+				t.Errorf("isofield %v stdout = %q, want it to contain %q", tt.args, out, tt.stdoutHas)
+			}
+			if !strings.Contains(errs, tt.stderrHas) {
+				t.Errorf("isofield %v stderr = %q, want it to contain %q", tt.args, errs, tt.stderrHas)
+			}
+			if tt.emptyError && errs != "" {
+				t.Errorf("isofield %v stderr = %q, want nothing", tt.args, errs)
+			}
+		})
+	}
+}
+
+// TestBadInput checks that every malformed file of the walking-skeleton
+// issue gets one line on stderr naming the file (and line where there is
+// one), exit 1, no stack trace, and an untouched input.
+func TestBadInput(t *testing.T) {
+	tests := []struct {
+		file string
+		want string // substring of the one-line message after the path
+	}{
+		{"empty.csv", "empty.csv"},
+		{"header_only.csv", "header_only.csv"},
+		{"missing_y.csv", "missing_y.csv:1"},
+		{"text_value.csv", "text_value.csv:3:3"},
+		{"nan.csv", "nan.csv:3:3"},
+		{"inf.csv", "inf.csv:4:3"},
+		{"ragged.csv", "ragged.csv:3"},
+		{"binary.csv", "binary.csv"},
+		{"single.csv", "single.csv"},
+		{"collinear.csv", "collinear.csv"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.file, func(t *testing.T) {
+			path := filepath.Join("..", "..", "testdata", "bad", tt.file)
+			before := digest(t, path)
+			out := filepath.Join(t.TempDir(), "grid.csv")
+			code, _, errs := runArgs("grid", "-o", out, path)
+			if code != exitInput {
+				t.Errorf("grid %s exit = %d, want %d (stderr %q)", tt.file, code, exitInput, errs)
+			}
+			if strings.Count(errs, "\n") != 1 || !strings.HasSuffix(errs, "\n") {
+				t.Errorf("grid %s stderr is not one line: %q", tt.file, errs)
+			}
+			if !strings.Contains(errs, tt.want) {
+				t.Errorf("grid %s stderr = %q, want it to name %q", tt.file, errs, tt.want)
+			}
+			if strings.Contains(errs, "goroutine") || strings.Contains(errs, "panic") {
+				t.Errorf("grid %s printed a stack trace: %q", tt.file, errs)
+			}
+			if _, err := os.Stat(out); err == nil {
+				t.Errorf("grid %s wrote %s despite the error", tt.file, out)
+			}
+			if after := digest(t, path); after != before {
+				t.Errorf("grid %s modified its input", tt.file)
+			}
+		})
+	}
+}
+
+func digest(t *testing.T, path string) [32]byte {
+	t.Helper()
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return sha256.Sum256(b)
+}
