@@ -18,6 +18,9 @@ var (
 	ErrCollinear     = errors.New("all readings lie on one straight line")
 	ErrBadTime       = errors.New("unreadable time")
 	ErrOutOfRange    = errors.New("value out of range")
+	ErrNoSpacing     = errors.New("line or station spacing not given")
+	ErrMixedFiles    = errors.New("files do not agree")
+	ErrBadSetting    = errors.New("bad setting")
 )
 
 // ParseError is an error in an input file. Line and Column are 1-based;

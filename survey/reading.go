@@ -55,6 +55,10 @@ type Reading struct {
 	// TestCurrent is the injected test current in amperes stated for this
 	// reading (0 when none).
 	TestCurrent float64
+	// Reference names the reference electrode the potential was read
+	// against, as written in the file (a reference column or the file's
+	// reference= setting); empty when the file does not say.
+	Reference string
 
 	File   int // index into Survey.Files
 	Line0  int // 1-based line number of the record in its file
@@ -63,9 +67,14 @@ type Reading struct {
 
 // FileInfo describes one input file.
 type FileInfo struct {
-	Path         string
-	SHA256       string // hex digest of the file's bytes as read
-	Header       []string
+	Path   string
+	SHA256 string // hex digest of the file's bytes as read
+	Header []string
+	// Roles says what the loader read from each header column: "x", "y",
+	// "potential", "id", "time", "date", "line", "station", "note",
+	// "test current", "latitude", "longitude" or "reference"; "" for a
+	// column it did not use.
+	Roles        []string
 	Delimiter    rune
 	DecimalComma bool
 	Unit         Unit // unit the file's potentials were written in

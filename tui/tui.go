@@ -1,11 +1,19 @@
 // Package tui is isofield's terminal user interface, built on Bubble Tea,
-// Lip Gloss and Bubbles.
+// Lip Gloss and Bubbles: a map of the gridded survey with a cursor readout
+// and legend, the ranked zones, the readings table with exclusions by hand,
+// a profile chart and the settings, all fed by pipeline.Run in the
+// background.
 package tui
-
-// TEMPORARY contract: filled in by the terminal UI work.
 
 import (
 	"errors"
+	"fmt"
+	"io"
+	"os"
+
+	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
+	"github.com/muesli/termenv"
 
 	"isofield/survey/pipeline"
 )
@@ -19,12 +27,51 @@ type Options struct {
 	// SessionPath is where hand edits and settings are saved ("" : none,
 	// e.g. for the built-in demo).
 	SessionPath string
+	// Save, if not nil, writes the configuration's edits and settings to
+	// SessionPath; the UI calls it in the background after every edit.
+	Save func(pipeline.Config) error
 	// NoColor forces monochrome (NO_COLOR is honoured regardless).
 	NoColor bool
+	// Input and Output default to the terminal (tests set them).
+	Input  io.Reader
+	Output io.Writer
 }
 
+// ErrPanic wraps a panic caught in the UI after the terminal was restored.
+var ErrPanic = errors.New("the terminal UI failed")
+
 // Run opens the UI on the survey described by cfg and returns when the user
-// quits. The terminal is restored on every exit path, panics included.
-func Run(cfg pipeline.Config, opt Options) error {
-	return errors.New("tui: not implemented yet")
+// quits. The terminal is restored on every exit path, panics included: a
+// panic becomes an error wrapping ErrPanic with a one-line cause.
+func Run(cfg pipeline.Config, opt Options) (err error) {
+	out := opt.Output
+	if out == nil {
+		out = os.Stdout
+	}
+	r := lipgloss.NewRenderer(out)
+	if opt.NoColor || os.Getenv("NO_COLOR") != "" {
+		r.SetColorProfile(termenv.Ascii)
+	}
+	m, _ := New(cfg, opt, DefaultKeyMap(), DefaultStyles(r)).Start()
+	popts := []tea.ProgramOption{tea.WithAltScreen(), tea.WithOutput(out)}
+	if opt.Input != nil {
+		popts = append(popts, tea.WithInput(opt.Input))
+	}
+	p := tea.NewProgram(m, popts...)
+	defer func() {
+		// Bubble Tea restores the terminal on panics in Update and View
+		// and returns ErrProgramPanic; this catches anything else.
+		if v := recover(); v != nil {
+			_ = p.ReleaseTerminal()
+			err = fmt.Errorf("%w: %v", ErrPanic, v)
+		}
+	}()
+	final, err := p.Run()
+	if errors.Is(err, tea.ErrProgramPanic) {
+		return fmt.Errorf("%w: %w", ErrPanic, err)
+	}
+	if fm, ok := final.(Model); ok && fm.cancel != nil {
+		fm.cancel()
+	}
+	return err
 }

@@ -1,11 +1,131 @@
 package main
 
 import (
+	"errors"
 	"flag"
+	"fmt"
+	"os"
+	"strings"
 
+	"isofield/survey/electrode"
+	"isofield/survey/pipeline"
 	"isofield/survey/qa"
+	"isofield/survey/session"
 )
 
-// TEMPORARY: filled in by the qa work. addQAFlags registers the checking
-// and cleaning flags shared by every command that reads surveys.
-func addQAFlags(fs *flag.FlagSet, s *qa.Settings) {}
+// Names of the session flags, read back with fs.Lookup after parsing.
+const (
+	flagNoSession = "no-session"
+	flagSession   = "session"
+)
+
+// addQAFlags registers the checking and cleaning flags shared by every
+// command that reads surveys, and the session flags.
+func addQAFlags(fs *flag.FlagSet, s *qa.Settings) {
+	refs := strings.Join(electrode.Names(), ", ")
+	fs.TextVar(&s.From, "from-ref", electrode.None, "reference electrode the readings were taken against, one of: "+refs+" (a reference column overrides it)")
+	fs.TextVar(&s.To, "to-ref", electrode.None, "convert every reading to this reference electrode `NAME` (default: no conversion)")
+	fs.StringVar(&s.Base, "base", "", "correct drift with the repeated readings of base station `ID`")
+	fs.BoolVar(&s.AutoBase, "auto-base", false, "correct drift with the proposed base station (the spot read most often)")
+	fs.TextVar(&s.Drift, "drift", qa.Linear, "drift curve between base readings: `linear` or cubic (monotone)")
+	fs.Float64Var(&s.RepeatTol, "repeat-tol", 0, fmt.Sprintf("largest spread of agreeing repeats, in the potential unit (default %g mV, ASTM C876 repeatability, from memory; negative: never suspect)", qa.DefaultRepeatTolMV))
+	fs.Float64Var(&s.RepeatDist, "repeat-dist", 0, fmt.Sprintf("readings within `METRES` are repeats of one spot (default %g; negative: same id only)", qa.DefaultRepeatDist))
+	fs.BoolVar(&s.IgnoreIDs, "repeat-by-position", false, "group repeats by position only (ids restart in each file)")
+	fs.Float64Var(&s.SpikeK, "spike-k", 0, fmt.Sprintf("mark readings whose leave-one-out robust z exceeds `K` (default %g; negative: no spike check)", qa.DefaultSpikeK))
+	fs.Float64Var(&s.TestCurrent, "test-current", 0, "injected test current in `AMPERES` for readings without a test current column")
+	fs.Float64Var(&s.FaultCurrent, "fault-current", 0, "scale readings to this current into the grid, in `AMPERES` (V × fault / test current)")
+	fs.Bool(flagNoSession, false, "ignore the session file (settings and hand edits kept beside the first input)")
+	fs.String(flagSession, "", "read the session from `FILE` instead of FIRST_INPUT"+session.Suffix)
+}
+
+// qaFlagFields copies, for each QA flag, its field from src to dst.
+func qaFlagFields() map[string]func(dst, src *qa.Settings) {
+	return map[string]func(dst, src *qa.Settings){
+		"from-ref":           func(d, s *qa.Settings) { d.From = s.From },
+		"to-ref":             func(d, s *qa.Settings) { d.To = s.To },
+		"base":               func(d, s *qa.Settings) { d.Base = s.Base },
+		"auto-base":          func(d, s *qa.Settings) { d.AutoBase = s.AutoBase },
+		"drift":              func(d, s *qa.Settings) { d.Drift = s.Drift },
+		"repeat-tol":         func(d, s *qa.Settings) { d.RepeatTol = s.RepeatTol },
+		"repeat-dist":        func(d, s *qa.Settings) { d.RepeatDist = s.RepeatDist },
+		"repeat-by-position": func(d, s *qa.Settings) { d.IgnoreIDs = s.IgnoreIDs },
+		"spike-k":            func(d, s *qa.Settings) { d.SpikeK = s.SpikeK },
+		"test-current":       func(d, s *qa.Settings) { d.TestCurrent = s.TestCurrent },
+		"fault-current":      func(d, s *qa.Settings) { d.FaultCurrent = s.FaultCurrent },
+	}
+}
+
+// checkQAFlags rejects QA flag values no run can use.
+func checkQAFlags(s qa.Settings) error {
+	if err := s.Validate(); err != nil {
+		return usageError{err}
+	}
+	return nil
+}
+
+// applySession reads the session of a parsed command line into cfg: its
+// hand edits, and its QA settings except those given as flags, which win.
+// With --no-session, or when no session file exists, cfg is unchanged. It
+// returns the session (nil when none was read) and notes to show.
+func applySession(fs *flag.FlagSet, cfg *pipeline.Config) (*session.File, []string, error) {
+	if f := fs.Lookup(flagNoSession); f != nil && f.Value.String() == "true" {
+		return nil, nil, nil
+	}
+	path := session.PathFor(cfg.Files)
+	explicit := false
+	if f := fs.Lookup(flagSession); f != nil && f.Value.String() != "" {
+		path, explicit = f.Value.String(), true
+	}
+	if path == "" {
+		return nil, nil, nil
+	}
+	sf, err := session.Load(path)
+	if err != nil {
+		if !explicit && errors.Is(err, os.ErrNotExist) {
+			return nil, nil, nil
+		}
+		return nil, nil, fmt.Errorf("session: %w", err)
+	}
+	set := sf.Settings.QA
+	fields := qaFlagFields()
+	fs.Visit(func(f *flag.Flag) {
+		if copyField, ok := fields[f.Name]; ok {
+			copyField(&set, &cfg.QA)
+		}
+	})
+	cfg.QA = set
+	cfg.Edits = append(cfg.Edits, sf.QAEdits()...)
+	notes := []string{fmt.Sprintf("session %s: %d hand edit(s) applied", path, len(sf.Edits))}
+	return sf, notes, nil
+}
+
+// flagsFirst reorders a command line so that flags written after the
+// files ("isofield clean a.csv b.csv -o out.csv") are parsed too: flags
+// (with the values of non-boolean ones) first, then "--", then the files
+// in their order. Everything after a "--" stays a file.
+func flagsFirst(fs *flag.FlagSet, args []string) []string {
+	var flags, files []string
+	for i := 0; i < len(args); i++ {
+		a := args[i]
+		switch {
+		case a == "--":
+			files = append(files, args[i+1:]...)
+			i = len(args)
+		case len(a) > 1 && a[0] == '-':
+			flags = append(flags, a)
+			name, _, hasValue := strings.Cut(strings.TrimLeft(a, "-"), "=")
+			if f := fs.Lookup(name); f != nil && !hasValue && !isBoolFlag(f) && i+1 < len(args) {
+				i++
+				flags = append(flags, args[i])
+			}
+		default:
+			files = append(files, a)
+		}
+	}
+	return append(append(flags, "--"), files...)
+}
+
+func isBoolFlag(f *flag.Flag) bool {
+	b, ok := f.Value.(interface{ IsBoolFlag() bool })
+	return ok && b.IsBoolFlag()
+}

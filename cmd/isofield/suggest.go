@@ -1,6 +1,85 @@
 package main
 
-import "errors"
+import (
+	"context"
+	"encoding/csv"
+	"fmt"
+	"io"
+	"strconv"
+	"text/tabwriter"
 
-// TEMPORARY: replaced by the suggest command.
-func runSuggest(e *env, args []string) error { return errors.New("suggest: not implemented yet") }
+	"isofield/survey/analysis"
+	"isofield/survey/fileout"
+	"isofield/survey/pipeline"
+)
+
+const suggestSummary = `Grid the readings and suggest where to take more: points where the field
+(or, with the grounding preset, the step voltage) is high far from any
+reading, and where readings nearby are predicted badly when left out of the
+fit. Suggestions are kept at least twice the typical reading spacing apart.
+With -o, write them as CSV for stake-out: id,x_m,y_m,score,why.`
+
+func runSuggest(e *env, args []string) error {
+	var sf surveyFlags
+	var out string
+	var force bool
+	fs := newFlagSet("suggest", "[flags] FILE.csv [FILE.csv...]", suggestSummary, e.stderr)
+	sf.register(fs)
+	fs.IntVar(&sf.cfg.Suggest, "n", 10, "suggest `N` points")
+	fs.StringVar(&out, "o", "", "write the suggestions as CSV to `FILE` (atomically)")
+	fs.BoolVar(&force, "force", false, "overwrite an existing output file")
+	if err := sf.parse(fs, args); err != nil {
+		return err
+	}
+	if len(sf.cfg.Files) == 0 {
+		return usageError{fmt.Errorf("suggest: no input file (see isofield suggest --help)")}
+	}
+	if sf.cfg.Suggest < 1 {
+		return usageError{fmt.Errorf("-n %d: want at least 1", sf.cfg.Suggest)}
+	}
+	res, err := pipeline.Run(context.Background(), sf.cfg, nil)
+	if err != nil {
+		return err
+	}
+	sg := res.Analysis.Suggestions
+	if err := writeSuggestTable(e.stdout, sg); err != nil {
+		return err
+	}
+	if out == "" {
+		return nil
+	}
+	err = fileout.Write(out, fileout.Options{Force: force, Inputs: sf.cfg.Files}, func(w io.Writer) error {
+		return writeSuggestCSV(w, sg)
+	})
+	if err == nil {
+		fmt.Fprintf(e.stderr, "wrote %d suggestions to %s\n", len(sg), out)
+	}
+	return err
+}
+
+// writeSuggestTable prints the suggestions for the screen.
+func writeSuggestTable(w io.Writer, sg []analysis.Suggestion) error {
+	if len(sg) == 0 {
+		_, err := fmt.Fprintln(w, "no infill point to suggest")
+		return err
+	}
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "id\tx\ty\tscore\twhy")
+	for _, s := range sg {
+		fmt.Fprintf(tw, "%s\t%.2f\t%.2f\t%.3g\t%s\n", s.ID, s.X, s.Y, s.Score, s.Why)
+	}
+	return tw.Flush()
+}
+
+// writeSuggestCSV writes the stake-out file.
+func writeSuggestCSV(w io.Writer, sg []analysis.Suggestion) error {
+	cw := csv.NewWriter(w)
+	rows := [][]string{{"id", "x_m", "y_m", "score", "why"}}
+	for _, s := range sg {
+		rows = append(rows, []string{s.ID, ff(s.X), ff(s.Y), strconv.FormatFloat(s.Score, 'g', 4, 64), s.Why})
+	}
+	return cw.WriteAll(rows)
+}
+
+// ff formats a coordinate with millimetre resolution.
+func ff(v float64) string { return strconv.FormatFloat(v, 'f', 3, 64) }

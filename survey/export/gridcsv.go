@@ -9,6 +9,7 @@ import (
 	"sync"
 
 	"isofield/interp"
+	"isofield/survey/export/cell"
 )
 
 // Column is an extra grid column appended after the fixed ones. Values has
@@ -65,7 +66,7 @@ func WriteGridCSV(w io.Writer, g *interp.Grid, unit string, flagged []bool, extr
 	}
 	for _, c := range extra {
 		head = append(head, ',')
-		head = append(head, NeutralCell(c.Name)...)
+		head = append(head, cell.Neutral(c.Name)...)
 	}
 	head = append(head, '\n')
 	if _, err := w.Write(head); err != nil {

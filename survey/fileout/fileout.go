@@ -69,6 +69,11 @@ func Write(path string, opt Options, write func(w io.Writer) error) error {
 	return nil
 }
 
+// Check reports whether Write would refuse path under opt (ErrIsInput,
+// ErrExists), without writing anything, so a caller writing several files
+// can refuse them all before writing the first.
+func Check(path string, opt Options) error { return check(path, opt) }
+
 // check applies the guards of opt to path.
 func check(path string, opt Options) error {
 	for _, in := range opt.Inputs {

@@ -90,6 +90,9 @@ func Run(ctx context.Context, cfg Config, progress Progress) (*Result, error) {
 	}
 	res.Survey = s
 	progress(StageCheck, 0)
+	// The preset may ask the checks for a reference scale (concrete, cp)
+	// and learns whether they scale to a fault current (grounding).
+	res.Notes = append(res.Notes, criteria.Link(&cfg.Criteria, &cfg.QA)...)
 	q, err := qa.Run(s, cfg.QA, cfg.Edits)
 	if err != nil {
 		return nil, err

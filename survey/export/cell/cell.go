@@ -1,13 +1,16 @@
-package export
+// Package cell makes text cells of CSV outputs safe to open in a
+// spreadsheet. It imports nothing from isofield, so every package that
+// writes CSV can use it.
+package cell
 
 import "strings"
 
-// NeutralCell returns s made safe for a spreadsheet: text that begins with
+// Neutral returns s made safe for a spreadsheet: text that begins with
 // =, +, - or @ (which spreadsheets may run as a formula) gets a leading
 // apostrophe, unless the whole cell is a plain number such as -350.2, which
 // stays as written. Tab and carriage return at the start are treated the
 // same way, since some spreadsheets strip them before looking.
-func NeutralCell(s string) string {
+func Neutral(s string) string {
 	if s == "" {
 		return s
 	}

@@ -1,0 +1,206 @@
+package interp
+
+import (
+	"math"
+)
+
+// Growth of an under-filled or collinear patch: its radius is multiplied
+// by patchGrow until it holds localMin readings not on one line, at most
+// until patchGrowMax times the base radius; then the patch is dropped.
+const (
+	patchGrow    = 1.5
+	patchGrowMax = 16
+)
+
+// lattice is the regular layout of patch centres over the readings'
+// bounding box (scaled coordinates): na × nb cells of hx × hy, one patch
+// centre at the middle of each, base radius rad0 = max(hx, hy), which is
+// at least the half-diagonal of a cell, so the base disks cover the box.
+type lattice struct {
+	x0, y0, hx, hy float64
+	na, nb         int
+	rad0           float64
+}
+
+// newLattice sizes the cells so that a base disk holds about localTarget
+// readings at the survey's mean density.
+func newLattice(ds *dataset) lattice {
+	xmin, ymin, xmax, ymax := bounds(ds.x, ds.y)
+	w, h := xmax-xmin, ymax-ymin
+	n := float64(len(ds.x))
+	area := max(w*h, ds.h*ds.h*n)
+	H := math.Sqrt(localTarget * area / (math.Pi * n))
+	na := max(1, int(math.Ceil(w/H)))
+	nb := max(1, int(math.Ceil(h/H)))
+	hx, hy := max(w/float64(na), H*1e-3), max(h/float64(nb), H*1e-3)
+	return lattice{x0: xmin, y0: ymin, hx: hx, hy: hy, na: na, nb: nb, rad0: max(hx, hy)}
+}
+
+func (l lattice) centre(a, b int) (x, y float64) {
+	return l.x0 + (float64(a)+0.5)*l.hx, l.y0 + (float64(b)+0.5)*l.hy
+}
+
+// assign finds each patch's readings, grows or drops patches as needed,
+// and lays the patches out in lf (coordinates, members, room for the
+// coefficients). It returns each patch's member list.
+func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit) [][]int32 {
+	var members [][]int32
+	var buf []int32
+	for b := 0; b < l.nb; b++ {
+		for a := 0; a < l.na; a++ {
+			cx, cy := l.centre(a, b)
+			buf = ix.within(buf[:0], cx, cy, l.rad0)
+			if len(buf) == 0 {
+				continue // an empty base disk: no patch (holes, corners)
+			}
+			idx, rad := growPatch(ix, ds, cx, cy, l.rad0, buf)
+			if idx == nil {
+				continue
+			}
+			lf.addPatch(ds, cx, cy, rad, idx)
+			members = append(members, idx)
+		}
+	}
+	return members
+}
+
+// growPatch returns the readings of the patch at (cx, cy) and its radius:
+// the base radius if that holds localMin readings not on one line, else a
+// radius grown by patchGrow steps; nil if even patchGrowMax × rad0 fails.
+// A patch over localMax readings keeps its localMax nearest.
+func growPatch(ix *pointIndex, ds *dataset, cx, cy, rad0 float64, first []int32) ([]int32, float64) {
+	idx, rad := first, rad0
+	for len(idx) < localMin || pointsCollinear(ds, idx) {
+		rad *= patchGrow
+		if rad > patchGrowMax*rad0 {
+			return nil, 0
+		}
+		idx = ix.within(idx[:0:0], cx, cy, rad)
+	}
+	out := append([]int32(nil), idx...)
+	if len(out) > localMax {
+		sortByDistance(out, ds.x, ds.y, cx, cy)
+		out = out[:localMax]
+		last := out[localMax-1]
+		rad = math.Hypot(ds.x[last]-cx, ds.y[last]-cy) * (1 + 1e-9)
+	}
+	return out, rad
+}
+
+// pointsCollinear reports whether the readings idx lie on one line (their
+// covariance has rank one to within collinearTol).
+func pointsCollinear(ds *dataset, idx []int32) bool {
+	var mx, my float64
+	n := float64(len(idx))
+	for _, k := range idx {
+		mx += ds.x[k] / n
+		my += ds.y[k] / n
+	}
+	var sxx, syy, sxy float64
+	for _, k := range idx {
+		dx, dy := ds.x[k]-mx, ds.y[k]-my
+		sxx, syy, sxy = sxx+dx*dx, syy+dy*dy, sxy+dx*dy
+	}
+	tr, det := sxx+syy, sxx*syy-sxy*sxy
+	return tr <= 0 || det <= 1e-8*tr*tr
+}
+
+// addPatch appends a patch with its readings in patch coordinates.
+func (lf *localFit) addPatch(ds *dataset, cx, cy, rad float64, idx []int32) {
+	lo := int32(len(lf.px))
+	for _, k := range idx {
+		lf.px = append(lf.px, (ds.x[k]-cx)/rad)
+		lf.py = append(lf.py, (ds.y[k]-cy)/rad)
+		lf.member = append(lf.member, k)
+		lf.coef = append(lf.coef, 0)
+	}
+	lf.patches = append(lf.patches, patch{cx: cx, cy: cy, rad: rad, lo: lo, hi: int32(len(lf.px))})
+}
+
+// cellMap lists, for each lattice cell, the patches whose disks meet it
+// (ids[start[c]:start[c+1]]), and the patch nearest to each cell's centre
+// for points that no disk covers.
+type cellMap struct {
+	lat   lattice
+	start []int32
+	ids   []int32
+	near  []int32
+}
+
+func newCellMap(l lattice, ps []patch) cellMap {
+	cm := cellMap{lat: l, start: make([]int32, l.na*l.nb+1)}
+	cm.eachCell(ps, func(c, _ int) { cm.start[c+1]++ })
+	for c := 0; c < l.na*l.nb; c++ {
+		cm.start[c+1] += cm.start[c]
+	}
+	cm.ids = make([]int32, cm.start[l.na*l.nb])
+	at := append([]int32(nil), cm.start[:l.na*l.nb]...)
+	cm.eachCell(ps, func(c, j int) {
+		cm.ids[at[c]] = int32(j)
+		at[c]++
+	})
+	pcx, pcy := make([]float64, len(ps)), make([]float64, len(ps))
+	for j, p := range ps {
+		pcx[j], pcy[j] = p.cx, p.cy
+	}
+	pix := newPointIndex(pcx, pcy, 2)
+	cm.near = make([]int32, l.na*l.nb)
+	for b := 0; b < l.nb; b++ {
+		for a := 0; a < l.na; a++ {
+			x, y := l.centre(a, b)
+			j, _ := pix.nearest(x, y, -1)
+			cm.near[b*l.na+a] = int32(j)
+		}
+	}
+	return cm
+}
+
+// eachCell calls fn(cell, patch) for every cell a patch's disk meets.
+func (cm *cellMap) eachCell(ps []patch, fn func(c, j int)) {
+	l := cm.lat
+	for j, p := range ps {
+		a0 := cellCoord((p.cx-p.rad-l.x0)/l.hx, l.na)
+		a1 := cellCoord((p.cx+p.rad-l.x0)/l.hx, l.na)
+		b0 := cellCoord((p.cy-p.rad-l.y0)/l.hy, l.nb)
+		b1 := cellCoord((p.cy+p.rad-l.y0)/l.hy, l.nb)
+		for b := b0; b <= b1; b++ {
+			for a := a0; a <= a1; a++ {
+				if cm.meets(p, a, b) {
+					fn(b*l.na+a, j)
+				}
+			}
+		}
+	}
+}
+
+// meets reports whether patch p's disk meets cell (a, b). Edge cells
+// extend without bound outward, since queries outside the lattice are
+// clamped to them.
+func (cm *cellMap) meets(p patch, a, b int) bool {
+	l := cm.lat
+	xlo, xhi := l.x0+float64(a)*l.hx, l.x0+float64(a+1)*l.hx
+	ylo, yhi := l.y0+float64(b)*l.hy, l.y0+float64(b+1)*l.hy
+	if a == 0 {
+		xlo = math.Inf(-1)
+	}
+	if a == l.na-1 {
+		xhi = math.Inf(1)
+	}
+	if b == 0 {
+		ylo = math.Inf(-1)
+	}
+	if b == l.nb-1 {
+		yhi = math.Inf(1)
+	}
+	dx := max(xlo-p.cx, 0, p.cx-xhi)
+	dy := max(ylo-p.cy, 0, p.cy-yhi)
+	return dx*dx+dy*dy < p.rad*p.rad
+}
+
+// candidates returns the patches that may cover (u, v) and the fallback
+// patch of its cell.
+func (cm *cellMap) candidates(u, v float64) ([]int32, int32) {
+	l := cm.lat
+	c := cellCoord((v-l.y0)/l.hy, l.nb)*l.na + cellCoord((u-l.x0)/l.hx, l.na)
+	return cm.ids[cm.start[c]:cm.start[c+1]], cm.near[c]
+}

@@ -1,0 +1,191 @@
+package interp
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"runtime"
+	"sort"
+	"sync"
+	"sync/atomic"
+)
+
+// Patch sizes of the partition of unity, in merged readings. Our choice,
+// within the range of Cavoretto, De Rossi & Perracchione (2016–2017), who
+// use patches of a few dozen points: about localTarget readings in a
+// patch of the base radius; patches with fewer than localMin grow until
+// they have localMin (and are not collinear); patches with more than
+// localMax shrink to their localMax nearest readings.
+const (
+	localTarget = 32
+	localMin    = 12
+	localMax    = 160
+)
+
+// patch is one local fit: centre and radius in the model's scaled
+// coordinates, its readings in patch coordinates (u − centre)/radius at
+// flat[lo:hi], and the polynomial part.
+type patch struct {
+	cx, cy, rad float64
+	lo, hi      int32
+	d           [3]float64
+	b           basis // shape rescaled to patch coordinates
+}
+
+// localFit is a partition-of-unity interpolant:
+//
+//	s(u) = Σ_j w_j(u) s_j(u) / Σ_j w_j(u),  w_j(u) = ψ(|u − c_j| / ρ_j),
+//
+// with ψ Wendland's C² function (1 − q)₊⁴(4q + 1) (Wendland, Adv. Comput.
+// Math. 4 (1995); the construction is Wendland, "Fast evaluation of
+// radial basis functions: methods based on partition of unity" (2002),
+// and Cavoretto, De Rossi & Perracchione, "Efficient computation of
+// partition of unity interpolants through a block-based searching
+// technique", Comput. Math. Appl. 71 (2016)). Patch centres lie on a
+// regular lattice; each s_j is a radial basis fit to the readings within
+// ρ_j of c_j. The blend is as smooth as its weights and local fits: C¹
+// for the thin-plate spline, whose second derivatives have a log
+// singularity at the readings.
+type localFit struct {
+	cx, cy, s float64 // caller → scaled coordinates
+	patches   []patch
+	px, py    []float64 // patch-local reading coordinates
+	coef      []float64
+	member    []int32 // merged reading index of each flat entry
+	cells     cellMap
+}
+
+// localPlan holds what building a local fit needs besides the data.
+type localPlan struct {
+	b      basis // kernel with shape in global scaled coordinates
+	lambda float64
+}
+
+func fitLocalModel(ctx context.Context, ds *dataset, opt Options, progress func(int, int)) (*Model, error) {
+	shape := opt.Shape
+	if shape == 0 {
+		shape = defaultShape(opt.Kernel, ds.h)
+	}
+	plan := localPlan{b: newBasis(opt.Kernel, shape), lambda: opt.Smoothing}
+	lf, cond, err := buildLocal(ctx, ds, plan, progress)
+	if err != nil {
+		return nil, err
+	}
+	m := &Model{surf: lf, info: FitInfo{
+		Method: Local, Smoothing: opt.Smoothing, Shape: shape,
+		LOORMS: math.NaN(), Condition: cond, Patches: len(lf.patches),
+	}}
+	if opt.AutoSmoothing || (opt.AutoShape && opt.Kernel.HasShape()) {
+		m.info.Warnings = append(m.info.Warnings,
+			"automatic smoothing and shape are chosen for global fits only; the local fit used the given or default values")
+	}
+	m.looFn = func() ([]float64, error) { return lf.leaveOneOut(ds, plan) }
+	return m, nil
+}
+
+// buildLocal lays out the patches, fits each in parallel and indexes them.
+func buildLocal(ctx context.Context, ds *dataset, plan localPlan, progress func(int, int)) (*localFit, float64, error) {
+	lat := newLattice(ds)
+	ix := newPointIndex(ds.x, ds.y, 4)
+	lf := &localFit{cx: ds.cx, cy: ds.cy, s: ds.s}
+	members := lat.assign(ds, ix, lf)
+	if len(lf.patches) == 0 {
+		return nil, 0, fmt.Errorf("local fit: no patch has enough readings: %w", ErrTooFew)
+	}
+	cond, err := lf.fitPatches(ctx, ds, plan, members, progress)
+	if err != nil {
+		return nil, 0, err
+	}
+	lf.cells = newCellMap(lat, lf.patches)
+	return lf, cond, nil
+}
+
+// fitPatches fits every patch, on all cores, and returns the largest
+// condition estimate.
+func (lf *localFit) fitPatches(ctx context.Context, ds *dataset, plan localPlan, members [][]int32, progress func(int, int)) (float64, error) {
+	var next, done atomic.Int64
+	var worst atomic.Uint64 // float64 bits of the largest condition
+	var firstErr error
+	var errOnce sync.Once
+	var wg sync.WaitGroup
+	np := len(lf.patches)
+	for w := 0; w < runtime.GOMAXPROCS(0); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			var sys smallSystem
+			for ctx.Err() == nil {
+				j := int(next.Add(1) - 1)
+				if j >= np {
+					return
+				}
+				c, err := lf.fitPatch(j, ds, plan, &sys)
+				if err != nil {
+					errOnce.Do(func() { firstErr = err })
+					return
+				}
+				for old := worst.Load(); c > math.Float64frombits(old); old = worst.Load() {
+					if worst.CompareAndSwap(old, math.Float64bits(c)) {
+						break
+					}
+				}
+				if d := int(done.Add(1)); d%256 == 0 || d == np {
+					progress(d, np)
+				}
+			}
+		}()
+	}
+	wg.Wait()
+	if err := ctx.Err(); err != nil {
+		return 0, err
+	}
+	return math.Float64frombits(worst.Load()), firstErr
+}
+
+// fitPatch solves patch j's system; the patch's readings are already in
+// lf.px, lf.py (patch coordinates) and their values are ds.v[member].
+func (lf *localFit) fitPatch(j int, ds *dataset, plan localPlan, sys *smallSystem) (float64, error) {
+	p := &lf.patches[j]
+	p.b = newBasis(plan.b.k, plan.b.eps*p.rad)
+	x, y := lf.px[p.lo:p.hi], lf.py[p.lo:p.hi]
+	f := make([]float64, len(x))
+	for i, k := range lf.member[p.lo:p.hi] {
+		f[i] = ds.v[k]
+	}
+	sys.build(x, y, f, p.b, patchLambda(plan, p.rad))
+	cond := sys.factor()
+	if cond > maxCondition || math.IsNaN(cond) {
+		return cond, fmt.Errorf("local fit, patch at (%.6g, %.6g) with %d readings: condition %.2g: %w",
+			p.cx*ds.s+ds.cx, p.cy*ds.s+ds.cy, len(x), cond, ErrIllConditioned)
+	}
+	sol := sys.rhs
+	sys.solve(sol)
+	copy(lf.coef[p.lo:p.hi], sol[:len(x)])
+	copy(p.d[:], sol[len(x):])
+	return cond, nil
+}
+
+// patchLambda converts the smoothing λ (global scaled coordinates) to a
+// patch's coordinates, which are the scaled ones divided by its radius ρ:
+// the thin-plate kernel then scales by 1/ρ² (plus a polynomial the side
+// conditions absorb), the cubic by 1/ρ³, and kernels with a shape not at
+// all (the shape is rescaled instead).
+func patchLambda(plan localPlan, rad float64) float64 {
+	switch plan.b.k {
+	case ThinPlate:
+		return plan.lambda / (rad * rad)
+	case Cubic:
+		return plan.lambda / (rad * rad * rad)
+	}
+	return plan.lambda
+}
+
+// sortByDistance orders idx by distance from (x, y).
+func sortByDistance(idx []int32, xs, ys []float64, x, y float64) {
+	sort.Slice(idx, func(a, b int) bool {
+		ia, ib := idx[a], idx[b]
+		da := (xs[ia]-x)*(xs[ia]-x) + (ys[ia]-y)*(ys[ia]-y)
+		db := (xs[ib]-x)*(xs[ib]-x) + (ys[ib]-y)*(ys[ib]-y)
+		return da < db
+	})
+}

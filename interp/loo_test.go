@@ -1,0 +1,139 @@
+package interp
+
+import (
+	"context"
+	"math"
+	"math/rand/v2"
+	"testing"
+)
+
+// TestLeaveOneOutGlobal: Rippa's closed form (Adv. Comput. Math. 11
+// (1999)) equals refitting without each reading, to 1e-10.
+func TestLeaveOneOutGlobal(t *testing.T) {
+	f := func(x, y float64) float64 { return math.Sin(x/5) * math.Exp(-y/30) }
+	for _, tt := range []struct {
+		name string
+		opt  Options
+	}{
+		{"thin-plate", Options{Method: Global}},
+		{"thin-plate smoothed", Options{Method: Global, Smoothing: 1e-3}},
+		{"multiquadric", Options{Method: Global, Kernel: Multiquadric}},
+		{"wendland-c2", Options{Method: Global, Kernel: WendlandC2}},
+	} {
+		t.Run(tt.name, func(t *testing.T) {
+			xs, ys, vs := scattered(21, 40, 0, 0, 50, 40, f)
+			m := mustFit(t, xs, ys, vs, tt.opt)
+			info := m.Info()
+			b := newBasis(tt.opt.Kernel, info.Shape)
+			loo := m.LeaveOneOut()
+			for k := range xs {
+				// Refit without reading k in the same scaled frame, so
+				// that smoothing and shape mean the same.
+				ds := *m.ds
+				ds.x, ds.y, ds.v = without(ds.x, k), without(ds.y, k), without(ds.v, k)
+				g, _, _, err := fitGlobal(&ds, b, info.Smoothing, false)
+				if err != nil {
+					t.Fatal(err)
+				}
+				want := vs[k] - g.Value(xs[k], ys[k])
+				if math.Abs(loo[k]-want) > 1e-10*max(1, math.Abs(want)) {
+					t.Errorf("reading %d: Rippa %.15g, refit %.15g", k, loo[k], want)
+				}
+			}
+			if info := m.Info(); math.Abs(info.LOORMS-rms(loo)) > 1e-12 {
+				t.Errorf("LOORMS %g, RMS of LeaveOneOut %g", info.LOORMS, rms(loo))
+			}
+		})
+	}
+}
+
+func without(s []float64, k int) []float64 {
+	return append(append([]float64(nil), s[:k]...), s[k+1:]...)
+}
+
+// TestLeaveOneOutLocal: the partition-of-unity equivalent equals leaving
+// the reading out of every patch that holds it and blending again with
+// the same weights (patches held fixed), to 1e-10.
+func TestLeaveOneOutLocal(t *testing.T) {
+	f := func(x, y float64) float64 { return math.Cos(x/9) + y*y/2000 }
+	xs, ys, vs := scattered(23, 500, 0, 0, 100, 80, f)
+	m := mustFit(t, xs, ys, vs, Options{Method: Local})
+	lf := m.surf.(*localFit)
+	loo := m.LeaveOneOut()
+	plan := localPlan{b: newBasis(ThinPlate, 0)}
+	var sys smallSystem
+	for _, k := range []int{0, 17, 123, 250, 499} {
+		var num, den float64
+		for j := range lf.patches {
+			p := &lf.patches[j]
+			var px, py, pv []float64
+			held := -1
+			for i := p.lo; i < p.hi; i++ {
+				if int(lf.member[i]) == k {
+					held = int(i)
+					continue
+				}
+				px, py, pv = append(px, lf.px[i]), append(py, lf.py[i]), append(pv, m.ds.v[lf.member[i]])
+			}
+			if held < 0 {
+				continue
+			}
+			sys.build(px, py, pv, p.b, patchLambda(plan, p.rad))
+			sys.factor()
+			sys.solve(sys.rhs)
+			refit := patch{d: [3]float64{sys.rhs[len(px)], sys.rhs[len(px)+1], sys.rhs[len(px)+2]}, b: p.b}
+			tmp := localFit{px: px, py: py, coef: sys.rhs[:len(px)]}
+			refit.hi = int32(len(px))
+			s, _, _ := tmp.patchValueGrad(&refit, lf.px[held], lf.py[held])
+			q := math.Hypot(lf.px[held], lf.py[held])
+			w := math.Pow(1-q, 4) * (4*q + 1)
+			num += w * (vs[k] - s)
+			den += w
+		}
+		if want := num / den; math.Abs(loo[k]-want) > 1e-10*max(1, math.Abs(want)) {
+			t.Errorf("reading %d: closed form %.15g, refits %.15g", k, loo[k], want)
+		}
+	}
+}
+
+// TestAutoSmoothing: on noisy readings leave-one-out picks a positive
+// smoothing and reports its RMS error, which is no worse than that of the
+// unsmoothed fit.
+func TestAutoSmoothing(t *testing.T) {
+	r := rand.New(rand.NewPCG(4, 4))
+	f := func(x, y float64) float64 { return math.Sin(x/15) + math.Cos(y/20) }
+	xs, ys, vs := scattered(31, 300, 0, 0, 100, 100, f)
+	for i := range vs {
+		vs[i] += 0.2 * r.NormFloat64()
+	}
+	plain := mustFit(t, xs, ys, vs, Options{Method: Global})
+	auto := mustFit(t, xs, ys, vs, Options{Method: Global, AutoSmoothing: true})
+	pi, ai := plain.Info(), auto.Info()
+	if ai.Smoothing <= 0 || !(ai.LOORMS <= pi.LOORMS) {
+		t.Errorf("auto smoothing %g with LOO RMS %g; unsmoothed LOO RMS %g", ai.Smoothing, ai.LOORMS, pi.LOORMS)
+	}
+	// The smoothed surface is closer to the noise-free function.
+	ep, _ := errorStats(30, 5, 5, 90, 90, plain.Value, f)
+	ea, _ := errorStats(30, 5, 5, 90, 90, auto.Value, f)
+	if ea >= ep {
+		t.Errorf("RMS error vs noise-free: auto %g, unsmoothed %g", ea, ep)
+	}
+}
+
+// TestAutoShape: the automatic shape is one of the candidates and its
+// leave-one-out RMS is no worse than the default shape's.
+func TestAutoShape(t *testing.T) {
+	xs, ys, vs := scattered(41, 200, 0, 0, 1, 1, franke)
+	for _, k := range []Kernel{Multiquadric, Gaussian, WendlandC4} {
+		t.Run(k.String(), func(t *testing.T) {
+			def := mustFit(t, xs, ys, vs, Options{Method: Global, Kernel: k})
+			auto, err := Fit(context.Background(), xs, ys, vs, Options{Method: Global, Kernel: k, AutoShape: true})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if d, a := def.Info(), auto.Info(); !(a.LOORMS <= d.LOORMS*(1+1e-9)) {
+				t.Errorf("auto shape %g LOO %g; default shape %g LOO %g", a.Shape, a.LOORMS, d.Shape, d.LOORMS)
+			}
+		})
+	}
+}

@@ -1,0 +1,73 @@
+// Package qa checks and cleans survey readings before they are gridded:
+// reference-electrode conversion, current scaling, drift, repeats, spikes
+// and exclusions by hand. Nothing is deleted and the survey is never
+// modified: every reading keeps its original value in the survey, its
+// corrected value and status are in the Result, and every correction or
+// change of status is a logged Step with its reason.
+//
+// # Order of the checks
+//
+// Run applies the checks in this order, each on the values the previous
+// one left:
+//
+//  1. Reference conversion: readings taken against one electrode are put
+//     on Settings.To (see package electrode for the offsets and their
+//     sources). A reading's own Reference overrides Settings.From.
+//  2. Current scaling: V × FaultCurrent / test current, the test current
+//     being the reading's own or Settings.TestCurrent.
+//  3. Drift: the base station's readings, in time order, give a curve B(t)
+//     (piecewise linear, or monotone cubic); every reading is corrected by
+//     V(t) − [B(t) − B(t₁)], with t₁ the first base reading. Without a
+//     timestamp on every reading, or when times run backwards within a
+//     file, the order of the readings stands in for time and the report
+//     says so. Before the first and after the last base reading the
+//     correction is held at its end value.
+//  4. Repeats: readings sharing an id, or within Settings.RepeatDist of each
+//     other, form a group. A group whose spread is within the tolerance
+//     agrees: every member gets the group mean as its corrected value and
+//     the group counts once for gridding (Result.Use picks its first
+//     member). A group that disagrees has every member marked suspect, each
+//     keeping its own corrected value. All members stay in the output.
+//     After drift correction the base station's readings agree by
+//     construction, so the base counts once, as one spot, and never forms a
+//     cluster of near-coincident values in the fit.
+//  5. Spikes: a radial basis interpolant (package interp, its default
+//     thin-plate spline; Rippa's closed form of the leave-one-out error for
+//     the global fit, the local equivalent for large surveys) is fitted to
+//     one value per spot, over readings neither suspect nor excluded by
+//     hand. A reading whose leave-one-out residual r has a robust z =
+//     (r − median) / (1.4826 MAD) beyond Settings.SpikeK, and whose
+//     |r − median| also exceeds the repeat tolerance (no reading is a spike
+//     by less than the measurement repeats to), is a candidate. A candidate
+//     is marked suspect only when it stands alone: if one of its six
+//     nearest spots (within 2.5 times the typical spacing) is a candidate
+//     of the same sign deviating at least half as much, the readings disagree
+//     with the fit together, which is a feature finer than the reading
+//     spacing (a real anomaly the interpolant cannot follow, or too coarse
+//     a grid), not a bad reading; such readings are noted and listed in
+//     Result.Steep, never marked. The
+//     suspects are then left out and the fit is made again, up to three
+//     times, so that one large spike does not make its neighbours look bad;
+//     readings not in the final fit get the out-of-sample residual at their
+//     position, which is what their leave-one-out residual means. A spot
+//     read more than once whose repeats agree (the base station among
+//     them) is confirmed by its repeats: it is noted, never marked as a
+//     spike. This is how a technician confirms a real anomaly in the
+//     field, and it keeps an isolated base station, whose leave-one-out
+//     value is an extrapolation, from being flagged.
+//  6. Hand edits, last: an exclusion makes the reading excluded whatever
+//     its status (excluded wins); an inclusion undoes exclusions and gives
+//     the reading back its automatic status. A reading excluded by hand
+//     takes no part in the drift curve, the repeat means or the spike fit,
+//     so excluding the bad one of two disagreeing repeats lets the other
+//     agree.
+//
+// A check that cannot run (a base station read once, too few readings for
+// a fit) is skipped with a remark in Result.Remarks, never an error. Errors
+// are reserved for input no check can honour: a reading naming a reference
+// electrode nobody knows, a reading without test current when scaling to a
+// fault current, a named base station not among the readings.
+//
+// All values are in the survey's unit; tolerances too. Positions are in
+// metres.
+package qa

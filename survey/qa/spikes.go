@@ -1,0 +1,242 @@
+package qa
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"sort"
+
+	"isofield/interp"
+)
+
+// Constants of the spike check.
+const (
+	// minSpikeSpots is the fewest spots the spike check runs on: fewer
+	// give no meaningful median absolute deviation (common practice).
+	minSpikeSpots = 10
+	// spikeRounds bounds the refits without the suspects.
+	spikeRounds = 3
+	// madToSigma turns a median absolute deviation into a standard
+	// deviation for normally distributed residuals (1/Φ⁻¹(3/4)).
+	madToSigma = 1.4826
+	// supportRatio is how large, relative to a candidate's, a neighbour's
+	// deviation of the same sign must be for the two to count as one
+	// feature rather than a spike and its echo (common practice).
+	supportRatio = 0.5
+)
+
+// spot is one value per place in the spike fit: a reading, or the first
+// member of an agreeing repeat group standing for the group.
+type spot struct {
+	reading int
+	x, y, v float64
+}
+
+// spikes fits the interpolant to one value per spot and marks readings
+// whose leave-one-out residual is far out as suspect.
+func (c *checker) spikes(ctx context.Context) error {
+	if c.set.SpikeK < 0 {
+		return nil
+	}
+	spots := c.spots()
+	if len(spots) < minSpikeSpots {
+		c.remark("spike check skipped: %d spots to compare, at least %d needed", len(spots), minSpikeSpots)
+		return nil
+	}
+	nb := newNeighbourIndex(spots)
+	out := make([]bool, len(spots))
+	var resid []float64
+	var steep []bool
+	for round := 0; round < spikeRounds; round++ {
+		r, info, err := c.residuals(ctx, spots, out)
+		if err != nil {
+			if ctx.Err() != nil {
+				return ctx.Err()
+			}
+			c.remark("spike check skipped: %v", err)
+			return nil
+		}
+		resid, c.res.Fit = r, info
+		var next []bool
+		next, steep = c.flag(spots, out, resid, nb)
+		if slices.Equal(next, out) {
+			break
+		}
+		out = next
+	}
+	c.markSpikes(spots, out, resid)
+	c.markSteep(spots, steep, resid)
+	return nil
+}
+
+// spots returns the places the spike fit uses: readings not suspect and
+// not excluded by hand, one per agreeing repeat group.
+func (c *checker) spots() []spot {
+	var sp []spot
+	done := map[int]bool{}
+	for i, rd := range c.s.Readings {
+		if c.hand[i] || c.res.Status[i] != OK {
+			continue
+		}
+		if g := c.res.Group[i]; g >= 0 {
+			if done[g] {
+				continue
+			}
+			done[g] = true
+		}
+		sp = append(sp, spot{i, rd.X, rd.Y, c.res.Corrected[i]})
+	}
+	return sp
+}
+
+// residuals fits the spots not marked out and returns every spot's
+// residual: the leave-one-out residual for spots in the fit, the
+// out-of-sample residual for the others.
+func (c *checker) residuals(ctx context.Context, spots []spot, out []bool) ([]float64, *interp.FitInfo, error) {
+	var xs, ys, vs []float64
+	for k, p := range spots {
+		if !out[k] {
+			xs, ys, vs = append(xs, p.x), append(ys, p.y), append(vs, p.v)
+		}
+	}
+	m, err := interp.Fit(ctx, xs, ys, vs, interp.Options{})
+	if err != nil {
+		return nil, nil, fmt.Errorf("fitting %d spots: %w", len(xs), err)
+	}
+	loo := m.LeaveOneOut()
+	if len(loo) != len(xs) {
+		return nil, nil, errors.New("the fit gave no leave-one-out residuals")
+	}
+	r := make([]float64, len(spots))
+	j := 0
+	for k, p := range spots {
+		if out[k] {
+			r[k] = p.v - m.Value(p.x, p.y)
+			continue
+		}
+		r[k] = loo[j]
+		j++
+	}
+	info := m.Info()
+	return r, &info, nil
+}
+
+// robust returns the median and the scale 1.4826 MAD of the residuals of
+// spots in the fit.
+func robust(resid []float64, out []bool) (med, scale float64) {
+	in := make([]float64, 0, len(resid))
+	for k, r := range resid {
+		if !out[k] && !math.IsNaN(r) {
+			in = append(in, r)
+		}
+	}
+	if len(in) == 0 {
+		return 0, 0
+	}
+	med = median(in)
+	for k := range in {
+		in[k] = math.Abs(in[k] - med)
+	}
+	return med, madToSigma * median(in)
+}
+
+// median returns the median of v, reordering v.
+func median(v []float64) float64 {
+	sort.Float64s(v)
+	n := len(v)
+	if n%2 == 1 {
+		return v[n/2]
+	}
+	return (v[n/2-1] + v[n/2]) / 2
+}
+
+// flag returns which spots are spikes given the residuals: candidates
+// whose residual is beyond both limits, unless one of their neighbours is a
+// candidate of the same sign deviating at least supportRatio as much (a
+// lone spike's neighbours pick up only a part of it, of either sign,
+// through the fit). Readings that disagree with
+// the fit together are a feature finer than the spacing (a real anomaly,
+// or too coarse a grid), not a lone bad reading; they are returned in
+// steep.
+func (c *checker) flag(spots []spot, out []bool, resid []float64, nb *neighbourIndex) (next, steep []bool) {
+	med, scale := robust(resid, out)
+	c.res.SpikeScale = scale
+	dev := make([]float64, len(spots)) // signed deviation of candidates, else 0
+	for k := range spots {
+		d := resid[k] - med
+		if math.Abs(d) > c.set.SpikeK*scale && math.Abs(d) > c.set.RepeatTol {
+			dev[k] = d
+		}
+	}
+	next, steep = make([]bool, len(spots)), make([]bool, len(spots))
+	for k := range spots {
+		if dev[k] == 0 {
+			continue
+		}
+		for _, j := range nb.of(k) {
+			if dev[j]*dev[k] > 0 && math.Abs(dev[j]) >= supportRatio*math.Abs(dev[k]) {
+				steep[k] = true
+				break
+			}
+		}
+		next[k] = !steep[k]
+	}
+	return next, steep
+}
+
+// markSpikes records residuals and z for every spot's readings and marks
+// the spikes suspect, largest |z| first in Result.Suspects.
+func (c *checker) markSpikes(spots []spot, out []bool, resid []float64) {
+	med, scale := robust(resid, out)
+	c.res.SpikeScale = scale
+	for k, p := range spots {
+		z := math.Inf(1)
+		if scale > 0 {
+			z = (resid[k] - med) / scale
+		} else if resid[k] == med {
+			z = 0
+		}
+		members := c.spotReadings(p.reading)
+		reason := fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, robust z %+.1f", resid[k], c.unit(), z)
+		for _, i := range members {
+			c.res.Residual[i], c.res.Z[i] = resid[k], z
+			switch {
+			case !out[k]:
+			case len(members) > 1:
+				c.note(i, reason+", but confirmed by its agreeing repeats: not marked")
+			default:
+				c.res.Suspects = append(c.res.Suspects, SpikeInfo{Reading: i, Residual: resid[k], Z: z})
+				c.setStatus(i, Suspect, KindSpike, reason)
+			}
+		}
+	}
+	sort.SliceStable(c.res.Suspects, func(a, b int) bool {
+		return math.Abs(c.res.Suspects[a].Z) > math.Abs(c.res.Suspects[b].Z)
+	})
+}
+
+// spotReadings returns the readings a spot stands for: the live members of
+// its repeat group, or the reading alone.
+func (c *checker) spotReadings(i int) []int {
+	if g := c.res.Group[i]; g >= 0 {
+		return c.live(c.res.Repeats[g].Members)
+	}
+	return []int{i}
+}
+
+// markSteep notes the readings of spots that disagree with the fit
+// together with a neighbour, and lists them in Result.Steep.
+func (c *checker) markSteep(spots []spot, steep []bool, resid []float64) {
+	for k, p := range spots {
+		if !steep[k] {
+			continue
+		}
+		reason := fmt.Sprintf("disagrees with the fit together with a neighbour (residual %+.4g %s): a feature finer than the reading spacing, not marked; consider readings in between", resid[k], c.unit())
+		for _, i := range c.spotReadings(p.reading) {
+			c.res.Steep = append(c.res.Steep, i)
+			c.note(i, reason)
+		}
+	}
+}

@@ -1,0 +1,192 @@
+package tui
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/charmbracelet/bubbles/help"
+	"github.com/charmbracelet/bubbles/key"
+	"github.com/charmbracelet/lipgloss"
+	"github.com/muesli/termenv"
+
+	"isofield/survey/criteria"
+	"isofield/survey/qa"
+)
+
+// Rows taken by the status line, the message line and the help line.
+const chromeRows = 3
+
+// sideWidth returns the width of the right-hand column for a terminal w
+// cells wide: a third, between 30 and 46 cells.
+func sideWidth(w int) int { return min(max(w/3, 30), 46) }
+
+// zonesBelowSide is the height from which the zones list sits under the
+// readout instead of replacing it.
+const zonesBelowSide = 36
+
+// resize lays the children out for a w × h terminal.
+func (m Model) resize(w, h int) Model {
+	m.width, m.height = max(w, 20), max(h, 8)
+	body := m.height - chromeRows
+	sw := sideWidth(m.width)
+	m.mapPane = m.mapPane.SetSize(m.width-sw, body)
+	if m.height >= zonesBelowSide {
+		zh := min(12, body/3)
+		m.side = m.side.SetSize(sw, body-zh)
+		m.zones = m.zones.SetSize(sw, zh)
+	} else {
+		m.side = m.side.SetSize(sw, body)
+		m.zones = m.zones.SetSize(sw, body)
+	}
+	m.table = m.table.SetSize(m.width, body)
+	m.profile = m.profile.SetSize(m.width, body)
+	m.settings = m.settings.SetSize(m.width, body)
+	m.help.Width = m.width - 2 // bubbles' help can overrun its width by a little
+	return m
+}
+
+// View draws the whole screen.
+func (m Model) View() string {
+	var body string
+	switch m.state {
+	case stateLoading:
+		body = m.centre(m.styles.PanelTitle.Render("isofield") + "\n\ngridding the survey…\n" + progressBar(m.styles, max(m.width/3, 12), m.frac))
+	case stateError:
+		body = m.centre(m.styles.Error.Render("could not open the survey") + "\n\n" + wrapJoin(m.err.Error(), m.width-4) + "\n\nq quits")
+	default:
+		body = m.readyBody()
+	}
+	if m.showHelp {
+		body = m.centre(m.helpOverlay())
+	}
+	body = lipgloss.NewStyle().Height(m.height - chromeRows).MaxHeight(m.height - chromeRows).Render(body)
+	return m.statusLine() + "\n" + body + "\n" + m.messageLine() + "\n" + m.help.ShortHelpView(m.keys.ShortHelp())
+}
+
+func wrapJoin(s string, w int) string { return strings.Join(wrap(s, max(w, 10)), "\n") }
+
+func (m Model) centre(s string) string {
+	return lipgloss.Place(m.width, m.height-chromeRows, lipgloss.Center, lipgloss.Center, s)
+}
+
+// readyBody draws the focused screen.
+func (m Model) readyBody() string {
+	switch m.focus {
+	case focusTable:
+		return m.table.View()
+	case focusSettings:
+		return m.settings.View()
+	case focusProfile:
+		return m.profile.View(m.scene, m.marks[0], m.marks[1])
+	}
+	x, y := m.mapPane.Cursor()
+	pr := m.scene.probeAt(x, y)
+	var right string
+	switch {
+	case m.height >= zonesBelowSide:
+		right = lipgloss.JoinVertical(lipgloss.Left, m.side.View(m.scene, pr, m.mapPane), m.zones.View())
+	case m.focus == focusZones:
+		right = m.zones.View()
+	default:
+		right = m.side.View(m.scene, pr, m.mapPane)
+	}
+	return lipgloss.JoinHorizontal(lipgloss.Top, m.mapPane.View(), right)
+}
+
+// statusLine names the survey, counts the readings and says what runs.
+func (m Model) statusLine() string {
+	st := m.styles
+	parts := nonEmpty([]string{"isofield", m.opt.Title})
+	if sc := m.scene; sc != nil {
+		n, sus, exc := countStatus(sc)
+		parts = append(parts, fmt.Sprintf("%d readings, %d suspect, %d excluded", n, sus, exc),
+			fmt.Sprintf("%d zones", len(sc.zones)), m.cfg.Criteria.Name())
+	}
+	style := st.Status
+	if m.running {
+		parts = append(parts, "working: "+m.stage)
+		style = st.StatusBusy
+	}
+	return style.Width(m.width).MaxWidth(m.width).Render(truncate(strings.Join(parts, " · "), m.width))
+}
+
+func countStatus(sc *scene) (n, sus, exc int) {
+	n = len(sc.res.Survey.Readings)
+	if q := sc.res.QA; q != nil {
+		for _, s := range q.Status {
+			switch s {
+			case qa.Suspect:
+				sus++
+			case qa.Excluded:
+				exc++
+			}
+		}
+	}
+	return n, sus, exc
+}
+
+// messageLine shows the reason prompt, the progress bar, the last message
+// or, for the grounding preset, a standing caution.
+func (m Model) messageLine() string {
+	st := m.styles
+	switch {
+	case m.prompting:
+		return truncate(m.reason.View(), m.width)
+	case m.running:
+		return truncate(progressBar(m.styles, max(m.width/3, 12), m.frac)+" "+m.stage+"  (c cancels)", m.width)
+	case m.message != "":
+		return truncate(st.Warn.Render(m.message), m.width)
+	case m.cfg.Criteria.Name() == criteria.Grounding:
+		return truncate(st.Caution.Render("⚠ energised systems: follow local codes and a licensed engineer; ? shows all cautions"), m.width)
+	}
+	return ""
+}
+
+// helpOverlay is the full key help followed by the cautions of the preset.
+func (m Model) helpOverlay() string {
+	h := m.help
+	h.ShowAll = true
+	h.Width = m.width - 6
+	keys := packHelp(h, m.keys.FullHelp())
+	body := m.styles.PanelTitle.Render("Keys") + "\n" + keys
+	cs := criteria.Cautions(m.cfg.Criteria.Name())
+	if m.scene != nil {
+		cs = m.scene.cautions
+	}
+	if room := m.height - chromeRows - lipgloss.Height(body) - 6; room > 2 {
+		lines := []string{"", m.styles.PanelTitle.Render("Cautions")}
+		for _, c := range cs {
+			lines = append(lines, wrap("• "+c, max(lipgloss.Width(body), 40))...)
+		}
+		if len(lines) > room {
+			lines = append(lines[:room-1], m.styles.Faint.Render("… (a taller terminal shows all cautions)"))
+		}
+		body += "\n" + strings.Join(lines, "\n")
+	}
+	return m.styles.Overlay.Render(body)
+}
+
+// profileOf returns the colour profile of st.
+func profileOf(st Styles) termenv.Profile {
+	if st.Renderer == nil {
+		return termenv.Ascii
+	}
+	return st.Renderer.ColorProfile()
+}
+
+// packHelp renders the help groups side by side in as few blocks as fit
+// h.Width.
+func packHelp(h help.Model, groups [][]key.Binding) string {
+	var blocks []string
+	for start := 0; start < len(groups); {
+		end := start + 1
+		free := h
+		free.Width = 0 // measure untruncated
+		for end < len(groups) && lipgloss.Width(free.FullHelpView(groups[start:end+1])) <= h.Width {
+			end++
+		}
+		blocks = append(blocks, h.FullHelpView(groups[start:end]))
+		start = end
+	}
+	return strings.Join(blocks, "\n\n")
+}

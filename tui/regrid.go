@@ -1,0 +1,148 @@
+package tui
+
+import (
+	"context"
+	"os"
+	"slices"
+	"time"
+
+	tea "github.com/charmbracelet/bubbletea"
+
+	"isofield/survey/pipeline"
+	"isofield/survey/qa"
+)
+
+// resultMsg is a finished pipeline run of generation gen.
+type resultMsg struct {
+	gen int
+	res *pipeline.Result
+	err error
+}
+
+// progressMsg reports a run's progress; next waits for the one after.
+type progressMsg struct {
+	gen   int
+	stage string
+	frac  float64
+	next  tea.Cmd
+}
+
+// stageSpan gives each pipeline stage its share of the progress bar.
+func stageSpan(stage string) (lo, hi float64) {
+	switch stage {
+	case pipeline.StageLoad:
+		return 0, 0.1
+	case pipeline.StageCheck:
+		return 0.1, 0.2
+	case pipeline.StageFit:
+		return 0.2, 0.5
+	case pipeline.StageGrid:
+		return 0.5, 0.85
+	}
+	return 0.85, 1
+}
+
+// runPipeline returns a command running the pipeline on a copy of cfg in
+// the background, and the function that cancels it. Progress arrives as
+// progressMsg, the outcome as resultMsg; both carry gen so the root can
+// drop messages of a run it has replaced. The command captures values only,
+// never the model.
+func runPipeline(cfg pipeline.Config, gen int) (tea.Cmd, context.CancelFunc) {
+	cfg.Files = slices.Clone(cfg.Files)
+	cfg.Edits = slices.Clone(cfg.Edits)
+	cfg.Criteria = cloneCriteria(cfg.Criteria)
+	ctx, cancel := context.WithCancel(context.Background())
+	ch := make(chan progressMsg, 1)
+	done := make(chan struct{})
+	var wait tea.Cmd
+	wait = func() tea.Msg {
+		select {
+		case p := <-ch:
+			p.next = wait
+			return p
+		case <-done:
+			return nil
+		}
+	}
+	report := func(stage string, f float64) {
+		lo, hi := stageSpan(stage)
+		select {
+		case ch <- progressMsg{gen: gen, stage: stage, frac: lo + f*(hi-lo)}:
+		default: // the UI is behind: drop this report, a later one follows
+		}
+	}
+	run := func() tea.Msg {
+		defer close(done)
+		res, err := pipeline.Run(ctx, cfg, report)
+		return resultMsg{gen: gen, res: res, err: err}
+	}
+	return tea.Batch(run, wait), cancel
+}
+
+// watchTickMsg is the watch mode's poll.
+type watchTickMsg struct{}
+
+// watchStamp is what the watch mode compares: each file's size and time.
+type watchStamp struct {
+	size  []int64
+	mtime []time.Time
+}
+
+// statMsg carries the files' current stamp.
+type statMsg struct{ stamp watchStamp }
+
+// watchInterval is how often watch mode looks at the files.
+const watchInterval = time.Second
+
+func watchTick() tea.Cmd {
+	return tea.Tick(watchInterval, func(time.Time) tea.Msg { return watchTickMsg{} })
+}
+
+// statFiles returns a command that stamps the files (missing files stamp
+// as size -1 so that their return is noticed).
+func statFiles(files []string) tea.Cmd {
+	files = slices.Clone(files)
+	return func() tea.Msg { return statMsg{stamp: stampOf(files)} }
+}
+
+func stampOf(files []string) watchStamp {
+	st := watchStamp{size: make([]int64, len(files)), mtime: make([]time.Time, len(files))}
+	for i, f := range files {
+		st.size[i] = -1
+		if fi, err := os.Stat(f); err == nil {
+			st.size[i], st.mtime[i] = fi.Size(), fi.ModTime()
+		}
+	}
+	return st
+}
+
+func (a watchStamp) equal(b watchStamp) bool {
+	return slices.Equal(a.size, b.size) && slices.EqualFunc(a.mtime, b.mtime, time.Time.Equal)
+}
+
+// savedMsg reports the outcome of saving the session.
+type savedMsg struct {
+	path string
+	err  error
+}
+
+// saveEdits returns a command that saves cfg through save, or nil when
+// there is nowhere to save.
+func saveEdits(save func(pipeline.Config) error, path string, cfg pipeline.Config) tea.Cmd {
+	if save == nil {
+		return nil
+	}
+	cfg.Edits = slices.Clone(cfg.Edits)
+	return func() tea.Msg { return savedMsg{path: path, err: save(cfg)} }
+}
+
+// editFor returns the hand edit that flips reading i of res.
+func editFor(res *pipeline.Result, i int, reason string) qa.Edit {
+	r := res.Survey.Readings[i]
+	path := ""
+	if r.File >= 0 && r.File < len(res.Survey.Files) {
+		path = res.Survey.Files[r.File].Path
+	}
+	exclude := res.QA == nil || i >= len(res.QA.Status) || res.QA.Status[i] != qa.Excluded
+	return qa.Edit{File: path, Line: r.Line0, ID: r.ID, Exclude: exclude, Reason: reason}
+}

@@ -1,0 +1,146 @@
+package tui
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/charmbracelet/lipgloss"
+
+	"isofield/survey/qa"
+	"isofield/tui/mapview"
+)
+
+// sidePane shows the readout at the cursor and the legend. It has no keys
+// of its own.
+type sidePane struct {
+	styles        Styles
+	width, height int
+}
+
+func newSidePane(st Styles) sidePane { return sidePane{styles: st} }
+
+// SetSize sets the outer size, borders included.
+func (p sidePane) SetSize(w, h int) sidePane {
+	p.width, p.height = w, h
+	return p
+}
+
+// View renders the pane for the scene at probe pr.
+func (p sidePane) View(sc *scene, pr probe, mp mapPane) string {
+	st := p.styles
+	fw, fh := st.Panel.GetFrameSize()
+	inner := max(p.width-fw, 8)
+	lines := p.readout(sc, pr, inner)
+	lines = append(lines, "")
+	room := max(p.height-fh-len(lines), 0)
+	lines = append(lines, p.legend(sc, mp, inner, room)...)
+	if len(lines) > p.height-fh {
+		lines = lines[:max(p.height-fh, 0)]
+	}
+	body := strings.Join(lines, "\n")
+	return st.Panel.Width(p.width - fw + st.Panel.GetHorizontalPadding()).
+		Height(max(p.height-fh, 0)).MaxHeight(p.height).Render(body)
+}
+
+func (p sidePane) row(label, value string, w int) string {
+	st := p.styles
+	s := st.Label.Render(fmt.Sprintf("%-5s", label)) + " " + st.Value.Render(value)
+	return truncate(s, w)
+}
+
+// truncate cuts s to w cells.
+func truncate(s string, w int) string {
+	if lipgloss.Width(s) <= w {
+		return s
+	}
+	return lipgloss.NewStyle().MaxWidth(w).Render(s)
+}
+
+// readout lists the values at the cursor.
+func (p sidePane) readout(sc *scene, pr probe, w int) []string {
+	st := p.styles
+	u := sc.unit
+	out := []string{st.PanelTitle.Render("At cursor"),
+		p.row("x,y", fixed(pr.X)+", "+fixed(pr.Y)+" m", w)}
+	if !pr.Inside {
+		out = append(out, p.row("V", "outside the surveyed area", w))
+	} else {
+		out = append(out, p.row("V", num(pr.V)+" "+u, w))
+		e := hypot(pr.EX, pr.EY)
+		b, name := bearing(pr.EX, pr.EY)
+		out = append(out, p.row("|E|", fmt.Sprintf("%s %s/m → %03.0f° %s", num(e), u, b, name), w))
+		if pr.HasStep {
+			out = append(out, p.row("step", num(pr.StepValue)+" "+u+" over 1 m", w))
+		}
+		out = append(out, p.row("band", sc.bandLabel(pr.Band), w))
+	}
+	if pr.Nearest >= 0 {
+		out = append(out, p.row("near", sc.readingLabel(pr.Nearest, pr.NearDist), w))
+	}
+	if pr.Zone >= 0 && pr.Zone < len(sc.zones) {
+		z := sc.zones[pr.Zone]
+		out = append(out, p.row("zone", fmt.Sprintf("#%d  %s m²  peak %s %s", z.Rank, num(z.Area), num(z.Peak), z.Unit), w))
+	}
+	return out
+}
+
+// readingLabel names reading i with its distance, value and status.
+func (sc *scene) readingLabel(i int, dist float64) string {
+	r := sc.res.Survey.Readings[i]
+	id := r.ID
+	if id == "" {
+		id = fmt.Sprintf("line %d", r.Line0)
+	}
+	status := qa.OK
+	if q := sc.res.QA; q != nil && i < len(q.Status) {
+		status = q.Status[i]
+	}
+	return fmt.Sprintf("%s %s m %s %s %s", id, num(dist), num(r.V), sc.unit, status)
+}
+
+// legend lists the bands of the base layer, highest first, in at most room
+// lines, followed by the criterion.
+func (p sidePane) legend(sc *scene, mp mapPane, w, room int) []string {
+	st := p.styles
+	b, _, ok := mp.renderer.BaseBands(sc.data, mp.view)
+	if !ok || room < 2 {
+		return nil
+	}
+	unit, what := sc.unit, "potential"
+	if mp.view.Layers&mapview.LayerField != 0 {
+		unit, what = sc.unit+"/m", "field |E|"
+	}
+	out := []string{st.PanelTitle.Render("Legend ") + st.Label.Render(what+", "+unit)}
+	crit := wrap(sc.criterion, w)
+	n := b.N()
+	show := max(room-1-min(len(crit), 3), 1)
+	step := max((n+show-1)/show, 1)
+	for k := n - 1; k >= 0; k -= step {
+		sw := p.swatch(sc, mp, k)
+		out = append(out, truncate(sw+" "+num(b.Edges[k])+" … "+num(b.Edges[k+1]), w))
+	}
+	for _, l := range crit {
+		out = append(out, st.Faint.Render(l))
+	}
+	return out
+}
+
+// swatch returns two cells in band k's colour and glyph.
+func (p sidePane) swatch(sc *scene, mp mapPane, k int) string {
+	g := string(mp.renderer.BandGlyph(sc.data, mp.view, k))
+	cells := g + g
+	if !p.styles.Colour {
+		return cells
+	}
+	c := mp.renderer.BandColour(sc.data, mp.view, k)
+	return p.styles.Renderer.NewStyle().Background(lipgloss.Color(c.Hex())).
+		Foreground(lipgloss.Color(mapview.Ink(c).Hex())).Render(cells)
+}
+
+// wrap breaks s into lines of at most w cells at spaces.
+func wrap(s string, w int) []string {
+	if s == "" {
+		return nil
+	}
+	return strings.Split(lipgloss.NewStyle().Width(w).Render(s), "\n")
+}
