@@ -10,12 +10,12 @@ import (
 
 // The candidates automatic smoothing and shape choose from. Smoothing λ is
 // in scaled coordinates, where the thin-plate kernel's entries are of
-// order one: 0 and the decades 1e-9 … 1. The shape ε runs over factors of
+// order one: 0 and the decades 1e-9 … 100. The shape ε runs over factors of
 // the kernel's default (defaultShape) from 1/8 to 4, so that both flat
 // and peaked kernels are tried. Our choice, in the spirit of Rippa (1999),
 // who scans ε over a range and keeps the leave-one-out minimum.
 func smoothingCandidates() []float64 {
-	return []float64{0, 1e-9, 1e-8, 1e-7, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2, 1e-1, 1}
+	return []float64{0, 1e-9, 1e-8, 1e-7, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2, 1e-1, 1, 10, 100}
 }
 
 func shapeFactors() []float64 { return []float64{0.125, 0.25, 0.5, 1, 2, 4} }

@@ -10,6 +10,7 @@ import (
 // is O(N); a query near the points looks at a few cells only.
 type pointIndex struct {
 	xs, ys     []float64
+	sx, sy     []float64 // coordinates in cell order: sx[k] = xs[idx[k]]
 	x0, y0     float64
 	cell       float64
 	nx, ny     int
@@ -64,6 +65,10 @@ func (ix *pointIndex) fill() {
 	for i, c := range cells {
 		ix.idx[fillAt[c]] = int32(i)
 		fillAt[c]++
+	}
+	ix.sx, ix.sy = make([]float64, len(ix.xs)), make([]float64, len(ix.xs))
+	for k, i := range ix.idx {
+		ix.sx[k], ix.sy[k] = ix.xs[i], ix.ys[i]
 	}
 }
 
@@ -149,10 +154,10 @@ func (ix *pointIndex) within(dst []int32, x, y, radius float64) []int32 {
 	for b := b0; b <= b1; b++ {
 		for a := a0; a <= a1; a++ {
 			c := b*ix.nx + a
-			for _, i := range ix.idx[ix.start[c]:ix.start[c+1]] {
-				dx, dy := ix.xs[i]-x, ix.ys[i]-y
+			for k := ix.start[c]; k < ix.start[c+1]; k++ {
+				dx, dy := ix.sx[k]-x, ix.sy[k]-y
 				if dx*dx+dy*dy <= r2 {
-					dst = append(dst, i)
+					dst = append(dst, ix.idx[k])
 				}
 			}
 		}
@@ -168,8 +173,8 @@ func (ix *pointIndex) anyWithin(x, y, radius float64) bool {
 	for b := b0; b <= b1; b++ {
 		for a := a0; a <= a1; a++ {
 			c := b*ix.nx + a
-			for _, i := range ix.idx[ix.start[c]:ix.start[c+1]] {
-				dx, dy := ix.xs[i]-x, ix.ys[i]-y
+			for k := ix.start[c]; k < ix.start[c+1]; k++ {
+				dx, dy := ix.sx[k]-x, ix.sy[k]-y
 				if dx*dx+dy*dy <= r2 {
 					return true
 				}

@@ -107,7 +107,7 @@ func (b basis) phi(r2 float64) float64 {
 		if r2 == 0 {
 			return 0
 		}
-		return 0.5 * r2 * math.Log(r2)
+		return 0.5 * r2 * logPos(r2)
 	case Cubic:
 		return r2 * math.Sqrt(r2)
 	case Multiquadric:
@@ -146,7 +146,7 @@ func (b basis) phiD(r2 float64) (f, dr float64) {
 		if r2 == 0 {
 			return 0, 0
 		}
-		l := math.Log(r2)
+		l := logPos(r2)
 		return 0.5 * r2 * l, l + 1
 	case Cubic:
 		r := math.Sqrt(r2)

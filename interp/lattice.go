@@ -42,9 +42,8 @@ func (l lattice) centre(a, b int) (x, y float64) {
 
 // assign finds each patch's readings, grows or drops patches as needed,
 // and lays the patches out in lf (coordinates, members, room for the
-// coefficients). It returns each patch's member list.
-func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit) [][]int32 {
-	var members [][]int32
+// coefficients).
+func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit) {
 	var buf []int32
 	for b := 0; b < l.nb; b++ {
 		for a := 0; a < l.na; a++ {
@@ -58,10 +57,8 @@ func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit) [][]int32 {
 				continue
 			}
 			lf.addPatch(ds, cx, cy, rad, idx)
-			members = append(members, idx)
 		}
 	}
-	return members
 }
 
 // growPatch returns the readings of the patch at (cx, cy) and its radius:

@@ -61,48 +61,81 @@ type localPlan struct {
 	lambda float64
 }
 
+// localLOOBelow is the merged reading count up to which an automatic
+// local fit also computes its full leave-one-out RMS error (about the cost
+// of a second fit).
+const localLOOBelow = 20000
+
 func fitLocalModel(ctx context.Context, ds *dataset, opt Options, progress func(int, int)) (*Model, error) {
 	shape := opt.Shape
 	if shape == 0 {
 		shape = defaultShape(opt.Kernel, ds.h)
 	}
-	plan := localPlan{b: newBasis(opt.Kernel, shape), lambda: opt.Smoothing}
-	lf, cond, err := buildLocal(ctx, ds, plan, progress)
+	lf, lat, err := layoutLocal(ds)
 	if err != nil {
 		return nil, err
 	}
+	plan := localPlan{b: newBasis(opt.Kernel, shape), lambda: opt.Smoothing}
+	var note string
+	auto := opt.AutoSmoothing || (opt.AutoShape && opt.Kernel.HasShape())
+	if auto {
+		ch, err := chooseLocal(ctx, ds, lf, opt, shape)
+		if err != nil {
+			return nil, err
+		}
+		plan = localPlan{b: newBasis(opt.Kernel, ch.shape), lambda: ch.lambda}
+		note = ch.note
+	}
+	cond, err := lf.fitPatches(ctx, ds, plan, progress)
+	if err != nil {
+		return nil, err
+	}
+	lf.cells = newCellMap(lat, lf.patches)
 	m := &Model{surf: lf, info: FitInfo{
-		Method: Local, Smoothing: opt.Smoothing, Shape: shape,
+		Method: Local, Smoothing: plan.lambda, Shape: plan.b.eps,
 		LOORMS: math.NaN(), Condition: cond, Patches: len(lf.patches),
 	}}
-	if opt.AutoSmoothing || (opt.AutoShape && opt.Kernel.HasShape()) {
-		m.info.Warnings = append(m.info.Warnings,
-			"automatic smoothing and shape are chosen for global fits only; the local fit used the given or default values")
+	if note != "" {
+		m.info.Warnings = append(m.info.Warnings, note)
 	}
 	m.looFn = func() ([]float64, error) { return lf.leaveOneOut(ds, plan) }
+	if auto && len(ds.x) <= localLOOBelow {
+		m.looOnce.Do(func() { m.loo, m.looErr = m.looFn() })
+		if m.looErr == nil {
+			m.info.LOORMS = rmsFinite(m.loo)
+		}
+	}
 	return m, nil
 }
 
-// buildLocal lays out the patches, fits each in parallel and indexes them.
-func buildLocal(ctx context.Context, ds *dataset, plan localPlan, progress func(int, int)) (*localFit, float64, error) {
+// rmsFinite is the RMS of the finite entries of e.
+func rmsFinite(e []float64) float64 {
+	var s float64
+	var n int
+	for _, v := range e {
+		if finite(v) {
+			s += v * v
+			n++
+		}
+	}
+	return math.Sqrt(s / float64(n))
+}
+
+// layoutLocal lays out the patches over the readings.
+func layoutLocal(ds *dataset) (*localFit, lattice, error) {
 	lat := newLattice(ds)
 	ix := newPointIndex(ds.x, ds.y, 4)
 	lf := &localFit{cx: ds.cx, cy: ds.cy, s: ds.s}
-	members := lat.assign(ds, ix, lf)
+	lat.assign(ds, ix, lf)
 	if len(lf.patches) == 0 {
-		return nil, 0, fmt.Errorf("local fit: no patch has enough readings: %w", ErrTooFew)
+		return nil, lat, fmt.Errorf("local fit: no patch has enough readings: %w", ErrTooFew)
 	}
-	cond, err := lf.fitPatches(ctx, ds, plan, members, progress)
-	if err != nil {
-		return nil, 0, err
-	}
-	lf.cells = newCellMap(lat, lf.patches)
-	return lf, cond, nil
+	return lf, lat, nil
 }
 
 // fitPatches fits every patch, on all cores, and returns the largest
 // condition estimate.
-func (lf *localFit) fitPatches(ctx context.Context, ds *dataset, plan localPlan, members [][]int32, progress func(int, int)) (float64, error) {
+func (lf *localFit) fitPatches(ctx context.Context, ds *dataset, plan localPlan, progress func(int, int)) (float64, error) {
 	var next, done atomic.Int64
 	var worst atomic.Uint64 // float64 bits of the largest condition
 	var firstErr error

@@ -61,44 +61,57 @@ func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
 // merge groups readings closer than mergeFraction of the median
 // nearest-neighbour spacing and replaces each group by its mean position
-// and mean value, recording the mapping in d.group.
+// and mean value, recording the mapping in d.group. Merged readings keep
+// input order of each group's leading reading.
 func (d *dataset) merge(xs, ys, vs []float64) {
 	n := len(xs)
 	ix := newPointIndex(xs, ys, 2)
 	tol := mergeFraction * medianNN(ix)
-	d.group = make([]int32, n)
-	for i := range d.group {
-		d.group[i] = -1
+	leader := make([]int32, n)
+	for i := range leader {
+		leader[i] = -1
 	}
 	var buf []int32
-	var worst float64
-	for i := 0; i < n; i++ {
-		if d.group[i] >= 0 {
+	for _, i := range ix.idx { // cell order, for memory locality
+		if leader[i] >= 0 {
 			continue
 		}
-		g := int32(len(d.x))
+		leader[i] = i
 		buf = ix.within(buf[:0], xs[i], ys[i], tol)
-		var sx, sy, sv float64
-		var cnt int
-		lo, hi := vs[i], vs[i]
 		for _, j := range buf {
-			if d.group[j] >= 0 && int(j) != i {
-				continue
+			if leader[j] < 0 {
+				leader[j] = i
 			}
-			d.group[j] = g
-			sx, sy, sv = sx+xs[j], sy+ys[j], sv+vs[j]
-			lo, hi = min(lo, vs[j]), max(hi, vs[j])
-			cnt++
 		}
-		if cnt == 0 { // tol 0 and i itself matched nothing
-			d.group[i] = g
-			sx, sy, sv, cnt = xs[i], ys[i], vs[i], 1
-		}
-		d.merged += cnt - 1
-		worst = max(worst, hi-lo)
-		c := float64(cnt)
-		d.x, d.y, d.v = append(d.x, sx/c), append(d.y, sy/c), append(d.v, sv/c)
 	}
+	d.group = make([]int32, n)
+	var cnt []int
+	for i := range leader {
+		if leader[i] == int32(i) {
+			d.group[i] = int32(len(d.x))
+			d.x, d.y, d.v = append(d.x, 0), append(d.y, 0), append(d.v, 0)
+			cnt = append(cnt, 0)
+		}
+	}
+	lo := make([]float64, len(d.x))
+	hi := make([]float64, len(d.x))
+	for i := range leader {
+		g := d.group[leader[i]]
+		d.group[i] = g
+		if cnt[g] == 0 {
+			lo[g], hi[g] = vs[i], vs[i]
+		}
+		d.x[g], d.y[g], d.v[g] = d.x[g]+xs[i], d.y[g]+ys[i], d.v[g]+vs[i]
+		lo[g], hi[g] = min(lo[g], vs[i]), max(hi[g], vs[i])
+		cnt[g]++
+	}
+	var worst float64
+	for g, c := range cnt {
+		f := float64(c)
+		d.x[g], d.y[g], d.v[g] = d.x[g]/f, d.y[g]/f, d.v[g]/f
+		worst = max(worst, hi[g]-lo[g])
+	}
+	d.merged = n - len(d.x)
 	if d.merged > 0 {
 		d.warnings = append(d.warnings, fmt.Sprintf(
 			"%d readings lay within %.3g of another (1%% of the median spacing) and were merged with it into their mean; the largest difference inside a merged group was %.4g",

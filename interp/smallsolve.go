@@ -28,11 +28,14 @@ func (s *smallSystem) build(x, y, f []float64, b basis, lambda float64) {
 	s.a, s.piv, s.rhs = s.a[:n*n], s.piv[:n], s.rhs[:n]
 	for i := 0; i < m; i++ {
 		row := s.a[i*n : i*n+n]
-		for j := 0; j < m; j++ {
+		for j := 0; j < i; j++ { // symmetric: copy the upper triangle
+			row[j] = s.a[j*n+i]
+		}
+		row[i] = b.phi(0) + lambda
+		for j := i + 1; j < m; j++ {
 			du, dv := x[i]-x[j], y[i]-y[j]
 			row[j] = b.phi(du*du + dv*dv)
 		}
-		row[i] += lambda
 		row[m], row[m+1], row[m+2] = 1, x[i], y[i]
 		s.rhs[i] = f[i]
 	}

@@ -47,7 +47,12 @@
 // needs a potential column and one of these pairs.
 //
 // The potential unit is the header's (V or mV), else the file's units=
-// setting, else LoadOptions.Units, else millivolts with a note.
+// setting, else LoadOptions.Units, else millivolts with a note. Coordinates
+// are metres; a header stating another unit for them is an error. Words
+// after the potential's unit name the reference electrode of the file:
+// "Potential (mV vs CSE)", "E [mV, SCE]" (a column named E with a volt
+// unit is the potential, not an easting). A reading's reference is its
+// reference cell, else the file's reference= setting, else the header's.
 //
 // Numbers are decimal; NaN, infinities and hexadecimal forms are refused.
 // When the delimiter is a tab or semicolon, a number with one comma and no

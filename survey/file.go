@@ -143,36 +143,23 @@ const batchRows = 2048
 const arenaFirst, arenaMax = 256, 1 << 15
 
 // readRows reads records on a goroutine of its own and sends them in
-// batches; blank records are skipped.
-// Each record is copied into a shared arena, since the csv.Reader reuses
-// its slice and Reading.Fields keeps the copy. The goroutine ends at the
-// end of input, at an error, or when done is closed.
+// batches; blank records are skipped. Each record is copied into a shared
+// arena, since the csv.Reader reuses its slice and Reading.Fields keeps
+// the copy. The goroutine ends at the end of input, at an error, or when
+// done is closed.
 func readRows(r *csv.Reader, lineOff int, done <-chan struct{}) <-chan batch {
 	out := make(chan batch, 4)
 	go func() {
 		defer close(out)
 		var keep arena
 		rows := make([]row, 0, batchRows)
-		send := func(b batch) bool {
-			select {
-			case <-done:
-				return false
-			default:
-			}
-			select {
-			case out <- b:
-				return true
-			case <-done:
-				return false
-			}
-		}
 		for {
 			rec, err := r.Read()
 			if err == io.EOF {
 				break
 			}
 			if err != nil {
-				send(batch{rows, err})
+				send(out, done, batch{rows, err})
 				return
 			}
 			if blankRecord(rec) {
@@ -181,17 +168,32 @@ func readRows(r *csv.Reader, lineOff int, done <-chan struct{}) <-chan batch {
 			line, _ := r.FieldPos(0)
 			rows = append(rows, row{keep.copy(rec), line + lineOff})
 			if len(rows) == batchRows {
-				if !send(batch{rows: rows}) {
+				if !send(out, done, batch{rows: rows}) {
 					return
 				}
 				rows = make([]row, 0, batchRows)
 			}
 		}
 		if len(rows) > 0 {
-			send(batch{rows: rows})
+			send(out, done, batch{rows: rows})
 		}
 	}()
 	return out
+}
+
+// send sends b unless done is closed; it reports whether it sent.
+func send(out chan<- batch, done <-chan struct{}, b batch) bool {
+	select {
+	case <-done:
+		return false
+	default:
+	}
+	select {
+	case out <- b:
+		return true
+	case <-done:
+		return false
+	}
 }
 
 // arena copies records into shared chunks of strings.

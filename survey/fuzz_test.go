@@ -34,13 +34,14 @@ func FuzzParse(f *testing.F) {
 	}
 	f.Fuzz(func(t *testing.T, data []byte) {
 		s, err := Parse(bytes.NewReader(data), "fuzz.csv", LoadOptions{})
+		lines := bytes.Count(data, []byte{'\n'}) + 1
 		if err != nil {
-			if _, ok := err.(*ParseError); !ok {
-				t.Fatalf("error %v is %T, want *ParseError", err, err)
+			pe, ok := err.(*ParseError)
+			if !ok || pe.Line < 0 || pe.Line > lines || pe.Column < 0 {
+				t.Fatalf("error %v (%T) is not a *ParseError within the %d lines", err, err, lines)
 			}
 			return
 		}
-		lines := bytes.Count(data, []byte{'\n'}) + 1
 		for i, r := range s.Readings {
 			if !finite(r.X) || !finite(r.Y) || !finite(r.V) || !finite(r.TestCurrent) {
 				t.Fatalf("reading %d not finite: %+v", i, r)

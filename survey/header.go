@@ -78,39 +78,63 @@ func unitSuffix(s string) bool {
 
 // splitHeader returns the normalised name and the lower-case unit of a
 // header cell such as "potential_mV", "potential (mV)", "V [V]" or
-// "Test current, A" ("" when it states none).
-func splitHeader(h string) (name, unit string) {
-	h = strings.ToLower(strings.TrimSpace(strings.TrimPrefix(h, "\ufeff")))
+// "Test current, A" ("" when it states none), and what follows the unit
+// inside the brackets or after the comma, as written: the reference
+// electrode in "Potential (mV vs CSE)" or "E [mV, SCE]".
+func splitHeader(h string) (name, unit, qual string) {
+	h = strings.TrimSpace(strings.TrimPrefix(h, "\ufeff"))
+	var ut string
 	if i := strings.IndexAny(h, "(["); i >= 0 {
 		if j := strings.IndexAny(h[i:], ")]"); j > 0 {
-			unit = strings.TrimSpace(h[i+1 : i+j])
+			ut = h[i+1 : i+j]
 			h = strings.TrimSpace(h[:i] + h[i+j+1:])
 		}
 	}
-	if i := strings.LastIndexByte(h, ','); i >= 0 && unit == "" {
-		unit, h = strings.TrimSpace(h[i+1:]), strings.TrimSpace(h[:i])
+	if i := strings.LastIndexByte(h, ','); i >= 0 && ut == "" {
+		ut, h = h[i+1:], strings.TrimSpace(h[:i])
 	}
+	unit, qual = splitUnit(ut)
+	name = normalName(h)
+	if name == "mv" { // a column titled by its unit alone
+		return "v", "mv", qual
+	}
+	if unit == "" {
+		if i := strings.LastIndexByte(name, '_'); i > 0 && unitSuffix(name[i+1:]) && lookupField(name) == fNone {
+			unit, name = name[i+1:], name[:i]
+		}
+	}
+	return name, unit, qual
+}
+
+// splitUnit splits "mV vs CSE" into "mv" and "CSE".
+func splitUnit(ut string) (unit, qual string) {
+	words := strings.FieldsFunc(ut, func(r rune) bool { return r == ' ' || r == ',' || r == ';' })
+	if len(words) == 0 {
+		return "", ""
+	}
+	unit, words = strings.ToLower(words[0]), words[1:]
+	if len(words) > 0 {
+		switch strings.ToLower(words[0]) {
+		case "vs", "vs.", "versus", "against", "ref", "ref.":
+			words = words[1:]
+		}
+	}
+	return unit, strings.Join(words, " ")
+}
+
+// normalName lower-cases a header name and turns spaces, hyphens, dots
+// and slashes into single underscores.
+func normalName(h string) string {
 	h = strings.Map(func(r rune) rune {
 		if r == ' ' || r == '-' || r == '.' || r == '/' {
 			return '_'
 		}
 		return r
-	}, h)
+	}, strings.ToLower(h))
 	for strings.Contains(h, "__") {
 		h = strings.ReplaceAll(h, "__", "_")
 	}
-	h = strings.Trim(h, "_")
-	if h == "mv" { // a column titled by its unit alone
-		return "v", "mv"
-	}
-	if unit == "" {
-		if i := strings.LastIndexByte(h, '_'); i > 0 && unitSuffix(h[i+1:]) {
-			if lookupField(h) == fNone {
-				unit, h = h[i+1:], h[:i]
-			}
-		}
-	}
-	return h, unit
+	return strings.Trim(h, "_")
 }
 
 // columns says which column holds each field (-1 when none) and the units
@@ -119,6 +143,7 @@ type columns struct {
 	at       [nFields]int
 	names    []string // header cells as written
 	vUnit    string   // "v", "mv" or "" from the potential header
+	vRef     string   // reference electrode named in the potential header
 	curScale float64  // multiplier to amperes for the test current
 	unused   []int    // columns not recognised or duplicated
 }
@@ -134,8 +159,11 @@ func mapHeader(header []string) (c columns, col int, err error) {
 	c.names = header
 	c.curScale = 1
 	for i, h := range header {
-		name, unit := splitHeader(h)
+		name, unit, qual := splitHeader(h)
 		f := lookupField(name)
+		if name == "e" && (unit == "v" || unit == "mv") {
+			f = fV // E in volts is a potential, not an easting
+		}
 		if f == fNone || c.at[f] >= 0 {
 			c.unused = append(c.unused, i)
 			continue
@@ -144,6 +172,9 @@ func mapHeader(header []string) (c columns, col int, err error) {
 			return c, i + 1, fmt.Errorf("header %q: %w", h, err)
 		}
 		c.at[f] = i
+		if f == fV {
+			c.vRef = qual
+		}
 	}
 	return c, 0, nil
 }
@@ -185,6 +216,10 @@ func (f *fileReader) setup(header []string, line int, opt LoadOptions) error {
 	}
 	f.cols = cols
 	f.commaOK = f.p.info.Delimiter != ','
+	if f.set.reference == "" && cols.vRef != "" {
+		f.set.reference = cols.vRef
+		f.p.notes = append(f.p.notes, fmt.Sprintf("reference electrode %s taken from the potential column's header", cols.vRef))
+	}
 	f.times.day, f.times.hasDay = f.set.date, f.set.hasDate
 	if err := f.chooseMode(opt); err != nil {
 		return &ParseError{File: f.name, Line: line, Err: err}

@@ -1,6 +1,7 @@
 package survey
 
 import (
+	"errors"
 	"math"
 	"slices"
 	"strings"
@@ -48,7 +49,7 @@ func TestLoadMerge(t *testing.T) {
 	for _, w := range want {
 		i := slices.IndexFunc(s.Readings, func(r Reading) bool { return r.ID == w.id })
 		r := s.Readings[i]
-		if r.File != w.file || r.Line0 != w.line || r.X != w.x || r.Y != w.y || math.Abs(r.V-w.v) > 1e-9 || r.Fields[3] != w.field {
+		if r.File != w.file || r.Line0 != w.line || r.X != w.x || r.Y != w.y || r.V != w.v || r.Fields[3] != w.field {
 			t.Errorf("reading %s = file %d line %d (%v, %v) V %v field %q; want file %d line %d (%v, %v) V %v field %q",
 				w.id, r.File, r.Line0, r.X, r.Y, r.V, r.Fields[3], w.file, w.line, w.x, w.y, w.v, w.field)
 		}
@@ -228,4 +229,29 @@ func hasNote(s *Survey, part string) bool {
 // parseString parses in as a file named in.csv.
 func parseString(in string, opt LoadOptions) (*Survey, error) {
 	return Parse(strings.NewReader(in), "in.csv", opt)
+}
+
+// TestLineNumbers: Line0 is the first line of each record, counting
+// comment lines, blank lines and quoted line breaks.
+func TestLineNumbers(t *testing.T) {
+	in := "# note\n\nx,y,v,note\n0,0,1,\"two\nlines\"\n# inside\n\n1,0,2,\n0,1,3,\"a\r\nb\"\n5,5,x,\n"
+	_, err := parseString(in, LoadOptions{})
+	var pe *ParseError
+	if !errors.As(err, &pe) || pe.Line != 11 || pe.Column != 3 {
+		t.Fatalf("error %v, want in.csv:11:3", err)
+	}
+	s, err := parseString(strings.TrimSuffix(in, "5,5,x,\n"), LoadOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var got []int
+	for _, r := range s.Readings {
+		got = append(got, r.Line0)
+	}
+	if want := []int{4, 8, 9}; !slices.Equal(got, want) {
+		t.Errorf("lines %v, want %v", got, want)
+	}
+	if s.Readings[0].Note != "two\nlines" || s.Readings[2].Note != "a\nb" {
+		t.Errorf("notes %q, %q", s.Readings[0].Note, s.Readings[2].Note)
+	}
 }

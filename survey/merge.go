@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"strconv"
+	"strings"
 
 	"isofield/survey/geo"
 )
@@ -28,13 +30,16 @@ func (s *Survey) merge(f *parsed, many bool) error {
 	if len(s.Files) == 0 {
 		s.Unit = f.info.Unit
 	} else if f.info.Geographic != s.Files[0].Geographic {
-		return &ParseError{File: f.info.Path, Err: fmt.Errorf("%s gives %s but %s gives %s; all files need the same kind of coordinates: %w",
-			f.info.Path, coordKind(f.info.Geographic), s.Files[0].Path, coordKind(s.Files[0].Geographic), ErrMixedFiles)}
+		return &ParseError{File: f.info.Path, Err: fmt.Errorf("%s here but %s in %s; all files need the same kind of coordinates: %w",
+			coordKind(f.info.Geographic), coordKind(s.Files[0].Geographic), s.Files[0].Path, ErrMixedFiles)}
 	}
 	if f.info.Unit != s.Unit {
-		k := s.Unit.PerVolt() / f.info.Unit.PerVolt()
+		shift := 3 // V to mV
+		if s.Unit == Volt {
+			shift = -3
+		}
 		for i := range f.readings {
-			f.readings[i].V *= k
+			f.readings[i].V = shiftDecimal(f.readings[i].V, shift)
 		}
 		f.notes = append(f.notes, fmt.Sprintf("potentials converted from %v to %v, the survey's unit", f.info.Unit, s.Unit))
 	}
@@ -48,6 +53,23 @@ func (s *Survey) merge(f *parsed, many bool) error {
 		s.Readings = append(s.Readings, f.readings...)
 	}
 	return nil
+}
+
+// shiftDecimal returns v × 10^shift rounded once from v's shortest
+// decimal form, so that -0.3012 V becomes -301.2 mV and not the
+// -301.20000000000005 that a multiplication gives.
+func shiftDecimal(v float64, shift int) float64 {
+	text := strconv.FormatFloat(v, 'e', -1, 64)
+	mant, exp, _ := strings.Cut(text, "e")
+	e, err := strconv.Atoi(exp)
+	if err != nil {
+		return v * math.Pow10(shift)
+	}
+	out, err := strconv.ParseFloat(mant+"e"+strconv.Itoa(e+shift), 64)
+	if err != nil {
+		return v * math.Pow10(shift)
+	}
+	return out
 }
 
 func coordKind(geographic bool) string {

@@ -19,7 +19,19 @@ const (
 	famClock            // time of day only
 )
 
-var famNames = [...]string{"", "year-first date", "day-first date", "unix seconds", "time of day"}
+func (f timeFamily) String() string {
+	switch f {
+	case famISO:
+		return "year-first date"
+	case famDMY:
+		return "day-first date"
+	case famUnix:
+		return "unix seconds"
+	case famClock:
+		return "time of day"
+	}
+	return "unknown form"
+}
 
 // layout is one accepted time form.
 type layout struct {
@@ -27,7 +39,8 @@ type layout struct {
 	layout string
 }
 
-// timeLayouts are tried in order; the first that parses wins.
+// timeLayouts are tried in order; the first that parses wins. The table
+// is read only.
 var timeLayouts = [...]layout{
 	{famISO, time.RFC3339Nano},
 	{famISO, "2006-01-02T15:04:05.999999999"},
@@ -83,7 +96,7 @@ func (t *timeReader) parse(s, date string, line int) (time.Time, error) {
 	if t.fam == famNone {
 		t.fam, t.famLine = fam, line
 	} else if fam != t.fam {
-		return v, fmt.Errorf("%q is a %s but line %d gave a %s: %w", s, famNames[fam], t.famLine, famNames[t.fam], ErrBadTime)
+		return v, fmt.Errorf("a %s, but line %d gave a %s: %w", fam, t.famLine, t.fam, ErrBadTime)
 	}
 	if fam == famClock {
 		v = t.day.Add(v.Sub(time.Date(0, 1, 1, 0, 0, 0, 0, time.UTC)))
@@ -105,7 +118,7 @@ func parseTime(s string) (v time.Time, fam timeFamily, zoned bool, err error) {
 	if looksNumeric(s) {
 		u, err := strconv.ParseFloat(s, 64)
 		if err == nil && !(u >= minUnix && u <= maxUnix) {
-			return time.Time{}, famNone, false, fmt.Errorf("%q: unix seconds must lie between %g and %g: %w", s, float64(minUnix), float64(maxUnix), ErrBadTime)
+			return time.Time{}, famNone, false, fmt.Errorf("unix seconds must lie between %g and %g: %w", float64(minUnix), float64(maxUnix), ErrBadTime)
 		}
 		if err == nil {
 			sec, frac := math.Modf(u)
@@ -117,7 +130,7 @@ func parseTime(s string) (v time.Time, fam timeFamily, zoned bool, err error) {
 			return v, l.fam, strings.Contains(l.layout, "Z07"), nil
 		}
 	}
-	return time.Time{}, famNone, false, fmt.Errorf("%q (want e.g. 2006-01-02T15:04:05Z, 2006-01-02 15:04, 02/01/2006 15:04, 15:04:05 or unix seconds): %w", s, ErrBadTime)
+	return time.Time{}, famNone, false, fmt.Errorf("want e.g. 2006-01-02T15:04:05Z, 2006-01-02 15:04, 02/01/2006 15:04, 15:04:05 or unix seconds: %w", ErrBadTime)
 }
 
 // notes returns the remarks on the file's times.

@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 	"time"
@@ -15,9 +16,9 @@ import (
 //	id,x_m,y_m,potential_<U>,time,line,station,note
 //
 // where U is the survey's unit, numbers are written in the shortest form
-// that reads back to the same float64, and time is RFC 3339 (UTC or the
-// reading's own offset, with fractional seconds only when present; empty
-// when the reading has none). Two columns follow when any reading uses
+// that reads back to the same float64 (without an exponent between 1e-4
+// and 1e15), and time is RFC 3339 (UTC or the reading's own offset, with
+// fractional seconds only when present; empty when the reading has none). Two columns follow when any reading uses
 // them: test_current_A and reference. Parse reads the output back to the
 // same readings. Cells that begin with '#' are quoted so that they are not
 // taken for comments.
@@ -35,19 +36,13 @@ func WriteCSV(w io.Writer, s *Survey) error {
 	if ref {
 		head = append(head, "reference")
 	}
-	writeRow(bw, head)
-	row := make([]string, 0, len(head))
+	cw := cellWriter{w: bw}
+	for _, h := range head {
+		cw.text(h)
+	}
+	cw.end()
 	for i := range s.Readings {
-		r := &s.Readings[i]
-		row = append(row[:0], r.ID, formatFloat(r.X), formatFloat(r.Y), formatFloat(r.V),
-			formatTime(r), r.Line, r.Station, r.Note)
-		if cur {
-			row = append(row, formatFloat(r.TestCurrent))
-		}
-		if ref {
-			row = append(row, r.Reference)
-		}
-		writeRow(bw, row)
+		cw.reading(&s.Readings[i], cur, ref)
 	}
 	if err := bw.Flush(); err != nil {
 		return fmt.Errorf("writing survey csv: %w", err)
@@ -55,31 +50,77 @@ func WriteCSV(w io.Writer, s *Survey) error {
 	return nil
 }
 
-func formatFloat(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
-
-func formatTime(r *Reading) string {
-	if !r.HasTime {
-		return ""
+// reading writes one reading's row.
+func (c *cellWriter) reading(r *Reading, cur, ref bool) {
+	c.text(r.ID)
+	c.float(r.X)
+	c.float(r.Y)
+	c.float(r.V)
+	if r.HasTime {
+		c.cell(r.Time.AppendFormat(c.buf[:0], time.RFC3339Nano))
+	} else {
+		c.text("")
 	}
-	return r.Time.Format(time.RFC3339Nano)
+	c.text(r.Line)
+	c.text(r.Station)
+	c.text(r.Note)
+	if cur {
+		c.float(r.TestCurrent)
+	}
+	if ref {
+		c.text(r.Reference)
+	}
+	c.end()
 }
 
-// writeRow writes cells separated by commas, quoting those that need it.
+// cellWriter writes comma-separated cells without allocating per cell.
 // Errors are left to the final Flush.
-func writeRow(w *bufio.Writer, cells []string) {
-	for i, c := range cells {
-		if i > 0 {
-			w.WriteByte(',')
-		}
-		if !needsQuotes(c, i == 0) {
-			w.WriteString(c)
-			continue
-		}
-		w.WriteByte('"')
-		w.WriteString(strings.ReplaceAll(c, `"`, `""`))
-		w.WriteByte('"')
+type cellWriter struct {
+	w     *bufio.Writer
+	buf   []byte
+	cells int // cells written in the current row
+}
+
+func (c *cellWriter) sep() {
+	if c.cells > 0 {
+		c.w.WriteByte(',')
 	}
-	w.WriteByte('\n')
+	c.cells++
+}
+
+// text writes a text cell, quoting it when it needs quotes.
+func (c *cellWriter) text(s string) {
+	c.sep()
+	if !needsQuotes(s, c.cells == 1) {
+		c.w.WriteString(s)
+		return
+	}
+	c.w.WriteByte('"')
+	c.w.WriteString(strings.ReplaceAll(s, `"`, `""`))
+	c.w.WriteByte('"')
+}
+
+// float writes v in the shortest form that reads back exactly, without
+// an exponent for the magnitudes of coordinates and potentials.
+func (c *cellWriter) float(v float64) {
+	format := byte('f')
+	if a := math.Abs(v); a != 0 && (a < 1e-4 || a >= 1e15) {
+		format = 'g'
+	}
+	c.buf = strconv.AppendFloat(c.buf[:0], v, format, -1, 64)
+	c.cell(c.buf)
+}
+
+// cell writes bytes that need no quotes.
+func (c *cellWriter) cell(b []byte) {
+	c.sep()
+	c.w.Write(b)
+	c.buf = b[:0]
+}
+
+func (c *cellWriter) end() {
+	c.w.WriteByte('\n')
+	c.cells = 0
 }
 
 // needsQuotes reports whether a cell must be quoted: it holds a comma,

@@ -60,3 +60,26 @@ func sameReading(a, b Reading) bool {
 		a.Station == b.Station && a.Note == b.Note && a.TestCurrent == b.TestCurrent &&
 		a.Reference == b.Reference
 }
+
+// TestShiftDecimal: unit conversion gives the decimal a person would
+// write, not the product's rounding noise.
+func TestShiftDecimal(t *testing.T) {
+	tests := []struct {
+		v     float64
+		shift int
+		want  float64
+	}{
+		{-0.3012, 3, -301.2},
+		{-0.2875, 3, -287.5},
+		{-301.2, -3, -0.3012},
+		{0.1, 3, 100},
+		{1e-300, 3, 1e-297},
+		{0, 3, 0},
+		{-850, -3, -0.85},
+	}
+	for _, tt := range tests {
+		if got := shiftDecimal(tt.v, tt.shift); got != tt.want {
+			t.Errorf("shiftDecimal(%v, %d) = %v, want %v", tt.v, tt.shift, got, tt.want)
+		}
+	}
+}

@@ -116,12 +116,12 @@ send Escape
 send s
 wait_for "Settings" 5
 send Down Down Enter C-u
-send -l "50"
+send -l "1000"
 send Enter
 sleep 0.5
 send Escape
 wait_idle 90
-wait_for "(^|[^0-9])50 … 100" 5
+wait_for "(^|[^0-9])1000 … 2000" 5
 
 # Quit: the program ends cleanly and the terminal leaves the alternate
 # screen.

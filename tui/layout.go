@@ -7,7 +7,6 @@ import (
 	"github.com/charmbracelet/bubbles/help"
 	"github.com/charmbracelet/bubbles/key"
 	"github.com/charmbracelet/lipgloss"
-	"github.com/muesli/termenv"
 
 	"isofield/survey/criteria"
 	"isofield/survey/qa"
@@ -45,8 +44,14 @@ func (m Model) resize(w, h int) Model {
 	return m
 }
 
-// View draws the whole screen.
-func (m Model) View() string {
+// View draws the whole screen; a panic while drawing shows a short
+// message instead.
+func (m Model) View() (out string) {
+	defer func() {
+		if r := recover(); r != nil {
+			out = fmt.Sprintf("isofield: internal error while drawing the screen: %v\npress q to quit", r)
+		}
+	}()
 	var body string
 	switch m.state {
 	case stateLoading:
@@ -59,7 +64,7 @@ func (m Model) View() string {
 	if m.showHelp {
 		body = m.centre(m.helpOverlay())
 	}
-	body = lipgloss.NewStyle().Height(m.height - chromeRows).MaxHeight(m.height - chromeRows).Render(body)
+	body = fitHeight(body, m.height-chromeRows)
 	return m.statusLine() + "\n" + body + "\n" + m.messageLine() + "\n" + m.help.ShortHelpView(m.keys.ShortHelp())
 }
 
@@ -90,22 +95,61 @@ func (m Model) readyBody() string {
 	default:
 		right = m.side.View(m.scene, pr, m.mapPane)
 	}
-	return lipgloss.JoinHorizontal(lipgloss.Top, m.mapPane.View(), right)
+	return besideMap(m.mapPane.View(), m.mapPane.width, right)
+}
+
+// besideMap puts right to the right of the map's lines, which are all
+// mapWidth cells wide but the last (the scale line), without measuring the
+// escape-laden map lines again.
+func besideMap(mapView string, mapWidth int, right string) string {
+	ls := strings.Split(mapView, "\n")
+	rs := strings.Split(right, "\n")
+	if n := len(ls) - 1; n >= 0 {
+		ls[n] += strings.Repeat(" ", max(mapWidth-lipgloss.Width(ls[n]), 0))
+	}
+	blank := strings.Repeat(" ", mapWidth)
+	var sb strings.Builder
+	for i := range max(len(ls), len(rs)) {
+		if i > 0 {
+			sb.WriteByte('\n')
+		}
+		if i < len(ls) {
+			sb.WriteString(ls[i])
+		} else {
+			sb.WriteString(blank)
+		}
+		if i < len(rs) {
+			sb.WriteString(rs[i])
+		}
+	}
+	return sb.String()
+}
+
+// fitHeight cuts or pads s to exactly h lines.
+func fitHeight(s string, h int) string {
+	ls := strings.Split(s, "\n")
+	if len(ls) > h {
+		ls = ls[:h]
+	}
+	for len(ls) < h {
+		ls = append(ls, "")
+	}
+	return strings.Join(ls, "\n")
 }
 
 // statusLine names the survey, counts the readings and says what runs.
 func (m Model) statusLine() string {
 	st := m.styles
 	parts := nonEmpty([]string{"isofield", m.opt.Title})
-	if sc := m.scene; sc != nil {
-		n, sus, exc := countStatus(sc)
-		parts = append(parts, fmt.Sprintf("%d readings, %d suspect, %d excluded", n, sus, exc),
-			fmt.Sprintf("%d zones", len(sc.zones)), m.cfg.Criteria.Name())
-	}
 	style := st.Status
 	if m.running {
 		parts = append(parts, "working: "+m.stage)
 		style = st.StatusBusy
+	}
+	if sc := m.scene; sc != nil {
+		n, sus, exc := countStatus(sc)
+		parts = append(parts, fmt.Sprintf("%d readings, %d suspect, %d excluded", n, sus, exc),
+			fmt.Sprintf("%d zones", len(sc.zones)), m.cfg.Criteria.Name())
 	}
 	return style.Width(m.width).MaxWidth(m.width).Render(truncate(strings.Join(parts, " · "), m.width))
 }
@@ -164,14 +208,6 @@ func (m Model) helpOverlay() string {
 		body += "\n" + strings.Join(lines, "\n")
 	}
 	return m.styles.Overlay.Render(body)
-}
-
-// profileOf returns the colour profile of st.
-func profileOf(st Styles) termenv.Profile {
-	if st.Renderer == nil {
-		return termenv.Ascii
-	}
-	return st.Renderer.ColorProfile()
 }
 
 // packHelp renders the help groups side by side in as few blocks as fit

@@ -3,6 +3,7 @@ package tui
 import (
 	"context"
 	"fmt"
+	"time"
 
 	"github.com/charmbracelet/bubbles/help"
 	"github.com/charmbracelet/bubbles/key"
@@ -69,15 +70,17 @@ type Model struct {
 	target    int
 	reason    lineInput
 
-	message string
-	watch   watchStamp
-	initCmd tea.Cmd
+	message  string
+	watch    watchStamp
+	initCmd  tea.Cmd
+	panicked string // cause of a caught panic; the UI then quits
 }
 
 // New returns the root model for cfg, drawn with st.
 func New(cfg pipeline.Config, opt Options, keys KeyMap, st Styles) Model {
 	h := help.New()
 	h.Styles = st.Help
+	keys.Export.SetEnabled(opt.ExportDir != "")
 	m := Model{
 		cfg: cfg, opt: opt, keys: keys, styles: st, help: h,
 		mapPane:  newMapPane(keys, st),
@@ -120,9 +123,26 @@ func (m Model) regrid(why string) (Model, tea.Cmd) {
 	return m, cmd
 }
 
-// Update routes a message to its handler.
-func (m Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
+// Update routes a message to its handler. A panic in any handler is caught
+// here: the UI records a one-line cause and quits, so that Run restores the
+// terminal and reports it instead of a stack dump over the screen.
+func (m Model) Update(msg tea.Msg) (next tea.Model, cmd tea.Cmd) {
+	defer func() {
+		if r := recover(); r != nil {
+			m.panicked = fmt.Sprint(r)
+			if m.cancel != nil {
+				m.cancel()
+			}
+			next, cmd = m, tea.Quit
+		}
+	}()
+	return m.update(msg)
+}
+
+func (m Model) update(msg tea.Msg) (tea.Model, tea.Cmd) {
 	switch msg := msg.(type) {
+	case panicMsg:
+		panic(msg.what)
 	case tea.WindowSizeMsg:
 		return m.resize(msg.Width, msg.Height), nil
 	case resultMsg:
@@ -135,6 +155,8 @@ func (m Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		return m.onStat(msg)
 	case savedMsg:
 		return m.onSaved(msg), nil
+	case exportedMsg:
+		return m.onExported(msg), nil
 	case applyMsg:
 		m.cfg = msg.cfg
 		m.message = "settings changed: regridding"
@@ -217,6 +239,9 @@ func (m Model) onKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 		return m.onPromptKey(msg)
 	}
 	typing := m.focus == focusSettings && m.settings.Editing()
+	if msg.Type == tea.KeyRunes && len(msg.Runes) > 1 && !typing && !msg.Paste {
+		return m.onKeys(msg.Runes)
+	}
 	switch {
 	case msg.Type == tea.KeyCtrlC, !typing && key.Matches(msg, m.keys.Quit):
 		if m.cancel != nil {
@@ -245,6 +270,19 @@ func (m Model) onKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 		return next, cmd
 	}
 	return m.routeKey(msg)
+}
+
+// onKeys handles several keys that arrived as one message (typed faster
+// than the terminal is read, or sent by a script) one by one.
+func (m Model) onKeys(rs []rune) (tea.Model, tea.Cmd) {
+	var cmds []tea.Cmd
+	var next tea.Model = m
+	for _, r := range rs {
+		var cmd tea.Cmd
+		next, cmd = next.(Model).onKey(tea.KeyMsg{Type: tea.KeyRunes, Runes: []rune{r}})
+		cmds = append(cmds, cmd)
+	}
+	return next, tea.Batch(cmds...)
 }
 
 // onScreenKey handles the keys that switch screens or act on the survey.
@@ -276,6 +314,9 @@ func (m Model) onScreenKey(msg tea.KeyMsg) (Model, tea.Cmd, bool) {
 		m.mapPane.view.MarkA, m.mapPane.view.MarkB = m.marks[0], m.marks[1]
 	case key.Matches(msg, k.Exclude) && (m.focus == focusMap || m.focus == focusTable):
 		return m.askReason()
+	case key.Matches(msg, k.Export):
+		m.message = "exporting…"
+		return m, exportView(m.opt, m.scene.res, m.cfg, describeView(m.mapPane), time.Now()), true
 	default:
 		return m, nil, false
 	}

@@ -36,6 +36,7 @@ func TestMapKeys(t *testing.T) {
 		{[]string{"+"}, scaleIs(v0.MPC / math.Sqrt2)},
 		{[]string{"-"}, scaleIs(v0.MPC * math.Sqrt2)},
 		{[]string{"+", "+", "0"}, scaleIs(v0.MPC)},
+		{[]string{"lll"}, cursorMoved(3*v0.MPC, 0)}, // keys typed faster than read arrive together
 		{[]string{"1"}, layerOff(mapview.LayerBands)},
 		{[]string{"2"}, layerOn(mapview.LayerField)},
 		{[]string{"3"}, layerOff(mapview.LayerZones)},
@@ -115,9 +116,10 @@ func TestScreenKeys(t *testing.T) {
 	}{
 		{"z opens the zones", []string{"z"}, focusIs(focusZones)},
 		{"z twice closes", []string{"z", "z"}, focusIs(focusMap)},
-		{"n jumps to zone 2", []string{"n"}, cursorAtZone(1)},
-		{"n n wraps to zone 1", []string{"n", "n"}, cursorAtZone(0)},
-		{"N goes back", []string{"N"}, cursorAtZone(1)},
+		{"n jumps to zone 1", []string{"n"}, cursorAtZone(0)},
+		{"n n goes to zone 2", []string{"n", "n"}, cursorAtZone(1)},
+		{"n n n wraps to zone 1", []string{"n", "n", "n"}, cursorAtZone(0)},
+		{"N goes to the last zone", []string{"N"}, cursorAtZone(1)},
 		{"enter jumps to the selected zone", []string{"z", "enter"}, cursorAtZone(0)},
 		{"t opens the table", []string{"t"}, focusIs(focusTable)},
 		{"o orders by the next column", []string{"t", "o"}, func(t *testing.T, m Model) {
@@ -336,4 +338,46 @@ func TestSettingsApply(t *testing.T) {
 	if m.cancel != nil {
 		m.cancel()
 	}
+}
+
+// TestPanicQuitsCleanly feeds a result without a survey, which panics
+// inside Update: the UI must record the cause and quit, not crash.
+func TestPanicQuitsCleanly(t *testing.T) {
+	m := readyModel(t, 80, 24, false)
+	next, cmd := m.Update(resultMsg{gen: m.gen, res: &pipeline.Result{}})
+	if got := next.(Model).panicked; got == "" {
+		t.Fatal("panic not recorded")
+	}
+	if cmd == nil || cmd() != tea.Quit() {
+		t.Error("a caught panic did not quit")
+	}
+	// A panic in a background command arrives as a message and ends the
+	// UI the same way.
+	msg := safe(func() tea.Msg { panic("disk on fire") })()
+	next, _ = m.Update(msg)
+	if got := next.(Model).panicked; got != "disk on fire" {
+		t.Errorf("panicked %q, want the command's panic", got)
+	}
+}
+
+// TestExportKey writes every export of the fixture into a new directory.
+func TestExportKey(t *testing.T) {
+	dir := t.TempDir()
+	m := New(fixtureConfig(), Options{Title: "site-a.csv", ExportDir: dir, ExportDPI: 20, Version: "test"}, DefaultKeyMap(), testStyles(false))
+	m.gen = 1
+	m = update1(t, m, tea.WindowSizeMsg{Width: 80, Height: 24})
+	m = update1(t, m, resultMsg{gen: 1, res: fixtureResult()})
+	next, cmd := m.Update(keyMsg("e"))
+	if cmd == nil {
+		t.Fatal("e gave no command")
+	}
+	msg, ok := cmd().(exportedMsg)
+	if !ok {
+		t.Fatalf("e's command returned %T, want exportedMsg", msg)
+	}
+	m = update1(t, next.(Model), msg)
+	if msg.err != nil || msg.files == 0 {
+		t.Fatalf("export: %d files, %v (message %q)", msg.files, msg.err, m.message)
+	}
+	t.Log(m.message)
 }

@@ -2,6 +2,7 @@ package tui
 
 import (
 	"context"
+	"fmt"
 	"os"
 	"slices"
 	"time"
@@ -48,9 +49,7 @@ func stageSpan(stage string) (lo, hi float64) {
 // drop messages of a run it has replaced. The command captures values only,
 // never the model.
 func runPipeline(cfg pipeline.Config, gen int) (tea.Cmd, context.CancelFunc) {
-	cfg.Files = slices.Clone(cfg.Files)
-	cfg.Edits = slices.Clone(cfg.Edits)
-	cfg.Criteria = cloneCriteria(cfg.Criteria)
+	cfg = cloneConfig(cfg)
 	ctx, cancel := context.WithCancel(context.Background())
 	ch := make(chan progressMsg, 1)
 	done := make(chan struct{})
@@ -76,7 +75,7 @@ func runPipeline(cfg pipeline.Config, gen int) (tea.Cmd, context.CancelFunc) {
 		res, err := pipeline.Run(ctx, cfg, report)
 		return resultMsg{gen: gen, res: res, err: err}
 	}
-	return tea.Batch(run, wait), cancel
+	return tea.Batch(safe(run), wait), cancel
 }
 
 // watchTickMsg is the watch mode's poll.
@@ -102,7 +101,7 @@ func watchTick() tea.Cmd {
 // as size -1 so that their return is noticed).
 func statFiles(files []string) tea.Cmd {
 	files = slices.Clone(files)
-	return func() tea.Msg { return statMsg{stamp: stampOf(files)} }
+	return safe(func() tea.Msg { return statMsg{stamp: stampOf(files)} })
 }
 
 func stampOf(files []string) watchStamp {
@@ -133,7 +132,7 @@ func saveEdits(save func(pipeline.Config) error, path string, cfg pipeline.Confi
 		return nil
 	}
 	cfg.Edits = slices.Clone(cfg.Edits)
-	return func() tea.Msg { return savedMsg{path: path, err: save(cfg)} }
+	return safe(func() tea.Msg { return savedMsg{path: path, err: save(cfg)} })
 }
 
 // editFor returns the hand edit that flips reading i of res.
@@ -145,4 +144,20 @@ func editFor(res *pipeline.Result, i int, reason string) qa.Edit {
 	}
 	exclude := res.QA == nil || i >= len(res.QA.Status) || res.QA.Status[i] != qa.Excluded
 	return qa.Edit{File: path, Line: r.Line0, ID: r.ID, Exclude: exclude, Reason: reason}
+}
+
+// panicMsg carries a panic caught in a background command to Update,
+// which ends the UI cleanly.
+type panicMsg struct{ what string }
+
+// safe wraps cmd so that a panic in it becomes a panicMsg.
+func safe(cmd tea.Cmd) tea.Cmd {
+	return func() (msg tea.Msg) {
+		defer func() {
+			if r := recover(); r != nil {
+				msg = panicMsg{what: fmt.Sprint(r)}
+			}
+		}()
+		return cmd()
+	}
 }

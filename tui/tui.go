@@ -30,6 +30,14 @@ type Options struct {
 	// Save, if not nil, writes the configuration's edits and settings to
 	// SessionPath; the UI calls it in the background after every edit.
 	Save func(pipeline.Config) error
+	// ExportDir is where the export key writes (each export in a new
+	// time-stamped directory); "" leaves the key out.
+	ExportDir string
+	// ExportDPI is the resolution of exported PNG maps (0: the export
+	// package's default print resolution).
+	ExportDPI int
+	// Version is the isofield version written into exports.
+	Version string
 	// NoColor forces monochrome (NO_COLOR is honoured regardless).
 	NoColor bool
 	// Input and Output default to the terminal (tests set them).
@@ -70,8 +78,13 @@ func Run(cfg pipeline.Config, opt Options) (err error) {
 	if errors.Is(err, tea.ErrProgramPanic) {
 		return fmt.Errorf("%w: %w", ErrPanic, err)
 	}
-	if fm, ok := final.(Model); ok && fm.cancel != nil {
-		fm.cancel()
+	if fm, ok := final.(Model); ok {
+		if fm.cancel != nil {
+			fm.cancel()
+		}
+		if fm.panicked != "" {
+			return fmt.Errorf("%w: %s (please report this)", ErrPanic, fm.panicked)
+		}
 	}
 	return err
 }

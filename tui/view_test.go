@@ -95,3 +95,22 @@ func checkFits(t *testing.T, out string, w, h int) {
 		}
 	}
 }
+
+// BenchmarkView draws whole frames (map, readout, legend, status, help)
+// with the cursor moving, in colour, by terminal size.
+func BenchmarkView(b *testing.B) {
+	for _, size := range [][2]int{{80, 24}, {120, 40}, {200, 60}} {
+		b.Run(fmt.Sprintf("size=%dx%d", size[0], size[1]), func(b *testing.B) {
+			m := readyModel(b, size[0], size[1], true)
+			b.ReportAllocs()
+			for i := 0; b.Loop(); i++ {
+				k := "l"
+				if i%40 >= 20 {
+					k = "h"
+				}
+				m = press(b, m, k)
+				_ = m.View()
+			}
+		})
+	}
+}

@@ -16,6 +16,7 @@ type zoneList struct {
 	zones         []zoneInfo
 	unit          string
 	cursor        int
+	stepped       bool // n or N used: the first press goes to the first (or last) zone
 	width, height int
 }
 
@@ -49,7 +50,15 @@ func (z zoneList) Step(d int) (zoneList, tea.Cmd) {
 	if len(z.zones) == 0 {
 		return z, nil
 	}
-	z.cursor = ((z.cursor+d)%len(z.zones) + len(z.zones)) % len(z.zones)
+	switch {
+	case !z.stepped && d > 0:
+		z.cursor = 0
+	case !z.stepped:
+		z.cursor = len(z.zones) - 1
+	default:
+		z.cursor = ((z.cursor+d)%len(z.zones) + len(z.zones)) % len(z.zones)
+	}
+	z.stepped = true
 	return z, z.jump()
 }
 

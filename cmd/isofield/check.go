@@ -16,7 +16,9 @@ the base station and its loop closure, repeats and their spread, suspects
 with their leave-one-out residuals, hand edits, remarks and the settings
 used. Hand edits and settings come from the session file beside the first
 input (FIRST_INPUT.isofield.json) unless --no-session; flags given on the
-command line win over the session's settings.
+command line win over the session's settings. --exclude FILE:LINE and
+--include FILE:LINE (with --reason) record hand edits in the session file,
+which is written at once.
 
 Exit status 0 when the check ran, even if it found problems; with --strict,
 3 when any reading is suspect.`
@@ -65,6 +67,9 @@ func checkSurvey(fs *flag.FlagSet, sf *surveyFlags) (*survey.Survey, *qa.Result,
 	}
 	if sess != nil {
 		notes = append(notes, sess.Changed(s.Files)...)
+	}
+	if _, err := recordEdits(fs, cfg, sess, s); err != nil {
+		return nil, nil, nil, err
 	}
 	q, err := qa.RunContext(context.Background(), s, cfg.QA, cfg.Edits)
 	if err != nil {

@@ -25,18 +25,10 @@ func runDemo(e *env, args []string) error {
 		return usageError{fmt.Errorf("demo: unexpected argument %q", fs.Arg(0))}
 	}
 	s := demo.Survey()
-	write := func(w io.Writer) error { return writeSurveyCSV(w, s) }
+	write := func(w io.Writer) error { return survey.WriteCSV(w, s) }
 	if out == "" {
 		return write(e.stdout)
 	}
 	return fileout.Write(out, fileout.Options{Force: force}, write)
 }
 
-// writeSurveyCSV is TEMPORARY until survey.WriteCSV lands.
-func writeSurveyCSV(w io.Writer, s *survey.Survey) error {
-	fmt.Fprintln(w, "id,x_m,y_m,potential_"+s.Unit.String()+",time,line,station,note")
-	for _, r := range s.Readings {
-		fmt.Fprintf(w, "%s,%g,%g,%g,%s,%s,%s,%s\n", r.ID, r.X, r.Y, r.V, r.Time.Format("2006-01-02T15:04:05Z07:00"), r.Line, r.Station, r.Note)
-	}
-	return nil
-}

@@ -25,8 +25,8 @@ the directory --dir (created if missing), under fixed names:
   zones.geojson        flagged zones as polygons with their statistics
   readings.geojson     readings as points with their QA status
   infill.geojson       suggested further readings
-  map_potential.svg    potential map; .png the same at 300 dpi (3150×2250)
-  map_field.svg        field map; .png the same at 300 dpi
+  map_potential.svg    potential map; .png the same at --dpi (300: 3150×2250)
+  map_field.svg        field map; .png the same at --dpi
   report.html          the survey report (one file, opens offline)
 
 GeoJSON positions are WGS 84 longitude and latitude when the survey was read
@@ -38,14 +38,19 @@ func runExport(e *env, args []string) error {
 	var sf surveyFlags
 	var dir, title string
 	var force bool
+	var dpi int
 	fs := newFlagSet("export", "--dir DIR [flags] FILE.csv [FILE.csv...]", exportSummary, e.stderr)
 	sf.register(fs)
 	fs.StringVar(&dir, "dir", "", "write the exports into `DIR`")
 	fs.BoolVar(&force, "force", false, "overwrite existing files")
 	fs.StringVar(&title, "title", "", "title of maps and report (default: the survey's name)")
 	fs.IntVar(&sf.cfg.Suggest, "suggest", 5, "suggest `N` further readings (0: none)")
+	fs.IntVar(&dpi, "dpi", export.MapDPI, "resolution of the PNG maps in `DPI` (10 to 1200)")
 	if err := sf.parse(fs, args); err != nil {
 		return err
+	}
+	if dpi < 10 || dpi > 1200 {
+		return usageError{fmt.Errorf("--dpi %d: want 10 to 1200", dpi)}
 	}
 	if dir == "" {
 		return usageError{fmt.Errorf("export: --dir is required (see isofield export --help)")}
@@ -64,7 +69,9 @@ func runExport(e *env, args []string) error {
 	if err != nil {
 		return err
 	}
-	paths, err := export.All(ctx, dir, res, sf.cfg, exportOptions(title, force, sf.cfg.Files))
+	opt := exportOptions(title, force, sf.cfg.Files)
+	opt.DPI = dpi
+	paths, err := export.All(ctx, dir, res, sf.cfg, opt)
 	for _, p := range paths {
 		fmt.Fprintln(e.stdout, p)
 	}

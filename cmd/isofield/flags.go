@@ -56,13 +56,11 @@ func (f *surveyFlags) register(fs *flag.FlagSet) {
 // parse parses args and completes the config. It returns errHelp after
 // printing help, and usageError for bad flags.
 func (f *surveyFlags) parse(fs *flag.FlagSet, args []string) error {
-	if err := fs.Parse(args); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return errHelp
-		}
-		return usageError{err}
+	files, err := parseInterspersed(fs, args)
+	if err != nil {
+		return err
 	}
-	f.cfg.Files = fs.Args()
+	f.cfg.Files = files
 	if err := f.fitOptions(); err != nil {
 		return usageError{err}
 	}
@@ -115,12 +113,36 @@ func autoOrValue(s string, lo float64) (auto bool, v float64, err error) {
 }
 
 // parseFlags parses args for commands without the shared survey flags.
+// Positional arguments stay available through fs.Args.
 func parseFlags(fs *flag.FlagSet, args []string) error {
-	if err := fs.Parse(args); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return errHelp
-		}
-		return usageError{err}
+	rest, err := parseInterspersed(fs, args)
+	if err != nil {
+		return err
 	}
-	return nil
+	// Leave the positional arguments where fs.Args finds them.
+	return fs.Parse(append([]string{"--"}, rest...))
+}
+
+// parseInterspersed parses flags that may stand before, between or after
+// the positional arguments (users write "grid a.csv -o g.csv" as often as
+// "grid -o g.csv a.csv"), and returns the positional arguments in order.
+// Everything after "--" is positional.
+func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
+	var pos []string
+	for {
+		if err := fs.Parse(args); err != nil {
+			if errors.Is(err, flag.ErrHelp) {
+				return nil, errHelp
+			}
+			return nil, usageError{err}
+		}
+		rest := fs.Args()
+		// fs.Parse stops at the first positional argument or after "--".
+		dashdash := len(args) > len(rest) && args[len(args)-len(rest)-1] == "--"
+		if len(rest) == 0 || dashdash {
+			return append(pos, rest...), nil
+		}
+		pos = append(pos, rest[0])
+		args = rest[1:]
+	}
 }

@@ -5,9 +5,13 @@ import (
 	"flag"
 	"fmt"
 	"os"
+	"strconv"
 	"strings"
+	"time"
 
+	"isofield/survey"
 	"isofield/survey/electrode"
+	"isofield/survey/fileout"
 	"isofield/survey/pipeline"
 	"isofield/survey/qa"
 	"isofield/survey/session"
@@ -17,6 +21,9 @@ import (
 const (
 	flagNoSession = "no-session"
 	flagSession   = "session"
+	flagExclude   = "exclude"
+	flagInclude   = "include"
+	flagReason    = "reason"
 )
 
 // addQAFlags registers the checking and cleaning flags shared by every
@@ -36,6 +43,9 @@ func addQAFlags(fs *flag.FlagSet, s *qa.Settings) {
 	fs.Float64Var(&s.FaultCurrent, "fault-current", 0, "scale readings to this current into the grid, in `AMPERES` (V × fault / test current)")
 	fs.Bool(flagNoSession, false, "ignore the session file (settings and hand edits kept beside the first input)")
 	fs.String(flagSession, "", "read the session from `FILE` instead of FIRST_INPUT"+session.Suffix)
+	fs.Var(&editSpecs{}, flagExclude, "exclude the reading at `FILE:LINE` by hand, recorded in the session file (repeatable)")
+	fs.Var(&editSpecs{}, flagInclude, "include again the reading at `FILE:LINE`, recorded in the session file (repeatable)")
+	fs.String(flagReason, "", "reason recorded with --exclude and --include")
 }
 
 // qaFlagFields copies, for each QA flag, its field from src to dst.
@@ -68,14 +78,7 @@ func checkQAFlags(s qa.Settings) error {
 // With --no-session, or when no session file exists, cfg is unchanged. It
 // returns the session (nil when none was read) and notes to show.
 func applySession(fs *flag.FlagSet, cfg *pipeline.Config) (*session.File, []string, error) {
-	if f := fs.Lookup(flagNoSession); f != nil && f.Value.String() == "true" {
-		return nil, nil, nil
-	}
-	path := session.PathFor(cfg.Files)
-	explicit := false
-	if f := fs.Lookup(flagSession); f != nil && f.Value.String() != "" {
-		path, explicit = f.Value.String(), true
-	}
+	path, explicit := sessionPath(fs, cfg.Files)
 	if path == "" {
 		return nil, nil, nil
 	}
@@ -128,4 +131,102 @@ func flagsFirst(fs *flag.FlagSet, args []string) []string {
 func isBoolFlag(f *flag.Flag) bool {
 	b, ok := f.Value.(interface{ IsBoolFlag() bool })
 	return ok && b.IsBoolFlag()
+}
+
+// sessionPath returns the session file of a parsed command line ("" with
+// --no-session) and whether --session named it.
+func sessionPath(fs *flag.FlagSet, files []string) (string, bool) {
+	if f := fs.Lookup(flagNoSession); f != nil && f.Value.String() == "true" {
+		return "", false
+	}
+	if f := fs.Lookup(flagSession); f != nil && f.Value.String() != "" {
+		return f.Value.String(), true
+	}
+	return session.PathFor(files), false
+}
+
+// editSpecs collects FILE:LINE arguments of --exclude and --include.
+type editSpecs []string
+
+func (e *editSpecs) String() string     { return strings.Join(*e, " ") }
+func (e *editSpecs) Set(s string) error { *e = append(*e, s); return nil }
+
+// editSpec is one parsed FILE:LINE.
+type editSpec struct {
+	file    string
+	line    int
+	exclude bool
+}
+
+// handEdits returns the --exclude and --include arguments of a parsed
+// command line, in that order.
+func handEdits(fs *flag.FlagSet) ([]editSpec, error) {
+	var out []editSpec
+	for _, name := range []string{flagExclude, flagInclude} {
+		f := fs.Lookup(name)
+		if f == nil {
+			continue
+		}
+		for _, spec := range *f.Value.(*editSpecs) {
+			k := strings.LastIndexByte(spec, ':')
+			line, err := strconv.Atoi(spec[k+1:])
+			if k <= 0 || err != nil || line < 1 {
+				return nil, usageError{fmt.Errorf("--%s %q: want FILE:LINE", name, spec)}
+			}
+			out = append(out, editSpec{spec[:k], line, name == flagExclude})
+		}
+	}
+	return out, nil
+}
+
+// recordEdits writes the hand edits of the command line into the session
+// (saving it at once) and adds them to cfg.Edits. Each must name a reading
+// of the loaded survey.
+func recordEdits(fs *flag.FlagSet, cfg *pipeline.Config, sess *session.File, s *survey.Survey) (*session.File, error) {
+	specs, err := handEdits(fs)
+	if err != nil || len(specs) == 0 {
+		return sess, err
+	}
+	if sess == nil {
+		path, _ := sessionPath(fs, cfg.Files)
+		if path == "" {
+			return nil, usageError{errors.New("--exclude and --include are kept in the session file: drop --no-session")}
+		}
+		sess = session.New(path)
+	}
+	sess.SetInputs(s.Files)
+	reason := fs.Lookup(flagReason).Value.String()
+	for _, sp := range specs {
+		i, err := findReading(s, sp.file, sp.line)
+		if err != nil {
+			return nil, usageError{err}
+		}
+		id := s.Readings[i].ID
+		edit := sess.Include
+		if sp.exclude {
+			edit = sess.Exclude
+		}
+		if err := edit(s.Files[s.Readings[i].File].Path, sp.line, id, reason, time.Now()); err != nil {
+			return nil, err
+		}
+		cfg.Edits = append(cfg.Edits, qa.Edit{File: s.Files[s.Readings[i].File].Path, Line: sp.line, ID: id, Exclude: sp.exclude, Reason: reason})
+	}
+	return sess, nil
+}
+
+// findReading returns the index of the reading on line of file.
+func findReading(s *survey.Survey, file string, line int) (int, error) {
+	fi := -1
+	for k, f := range s.Files {
+		if fileout.SameFile(f.Path, file) {
+			fi = k
+			break
+		}
+	}
+	for i, rd := range s.Readings {
+		if fi >= 0 && rd.File == fi && rd.Line0 == line {
+			return i, nil
+		}
+	}
+	return 0, fmt.Errorf("%s:%d: no reading on that line of the inputs", file, line)
 }

@@ -52,7 +52,10 @@ func runGrid(e *env, args []string) error {
 func writeGrid(w io.Writer, res *pipeline.Result, cfg pipeline.Config) error {
 	g := res.Grid
 	flagged := make([]bool, g.Len())
-	if t := cfg.Criteria.FieldThreshold; t > 0 {
+	if a := res.Analysis; a != nil && len(a.Flagged) == g.Len() {
+		// The preset's criterion: field, potential limits, step and touch.
+		flagged = a.Flagged
+	} else if t := cfg.Criteria.FieldThreshold; t > 0 {
 		for k := range flagged {
 			if !g.Mask[k] && math.Hypot(g.GX[k], g.GY[k]) >= t {
 				flagged[k] = true
@@ -62,5 +65,28 @@ func writeGrid(w io.Writer, res *pipeline.Result, cfg pipeline.Config) error {
 	return export.WriteGridCSV(w, g, res.Survey.Unit.String(), flagged, gridColumns(res))
 }
 
-// gridColumns returns the columns appended after the fixed ones.
-func gridColumns(res *pipeline.Result) []export.Column { return nil }
+// gridColumns returns the columns appended after the fixed ones: band (the
+// equipotential band of the node, see contour.Band; empty where masked),
+// and with the grounding preset step_U (step voltage) and, when a GPR is
+// given, touch_U (touch voltage, empty beyond reach of the structure).
+func gridColumns(res *pipeline.Result) []export.Column {
+	a := res.Analysis
+	if a == nil || len(a.NodeBand) != res.Grid.Len() {
+		return nil
+	}
+	band := make([]float64, len(a.NodeBand))
+	for k, b := range a.NodeBand {
+		band[k] = float64(b)
+		if b < 0 {
+			band[k] = math.NaN()
+		}
+	}
+	cols := []export.Column{{Name: "band", Values: band}}
+	if a.Step != nil {
+		cols = append(cols, export.Column{Name: "step_" + a.Unit, Values: a.Step})
+	}
+	if a.Touch != nil {
+		cols = append(cols, export.Column{Name: "touch_" + a.Unit, Values: a.Touch})
+	}
+	return cols
+}

@@ -113,3 +113,42 @@ func digest(t *testing.T, path string) [32]byte {
 	}
 	return sha256.Sum256(b)
 }
+
+// TestFlagsAnywhere checks that flags may follow the file names, as users
+// type them, and that "--" ends the flags.
+func TestFlagsAnywhere(t *testing.T) {
+	dir := t.TempDir()
+	demoCSV := filepath.Join(dir, "demo.csv")
+	if code, _, errs := runArgs("demo", "-o", demoCSV); code != 0 {
+		t.Fatalf("demo -o: exit %d: %s", code, errs)
+	}
+	tests := []struct {
+		name string
+		args []string
+		out  string
+	}{
+		{"flags first", []string{"grid", "--spacing", "2", "-o", filepath.Join(dir, "a.csv"), demoCSV}, "a.csv"},
+		{"flags last", []string{"grid", demoCSV, "--spacing", "2", "-o", filepath.Join(dir, "b.csv")}, "b.csv"},
+		{"flags between", []string{"grid", "--spacing", "2", demoCSV, "-o", filepath.Join(dir, "c.csv")}, "c.csv"},
+	}
+	var first []byte
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			if code, _, errs := runArgs(tt.args...); code != 0 {
+				t.Fatalf("isofield %v: exit %d: %s", tt.args, code, errs)
+			}
+			got, err := os.ReadFile(filepath.Join(dir, tt.out))
+			if err != nil {
+				t.Fatal(err)
+			}
+			if first == nil {
+				first = got
+			} else if !bytes.Equal(got, first) {
+				t.Errorf("isofield %v wrote a different grid than the flags-first form", tt.args)
+			}
+		})
+	}
+	if code, _, errs := runArgs("grid", "-o", filepath.Join(dir, "d.csv"), "--", "-not-a-flag.csv"); code != exitInput || !strings.Contains(errs, "-not-a-flag.csv") {
+		t.Errorf("grid -- -not-a-flag.csv: exit %d, stderr %q; want exit 1 naming the file", code, errs)
+	}
+}

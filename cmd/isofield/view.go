@@ -23,7 +23,10 @@ settings. Press ? inside for every key.
 Without files it opens the built-in demo survey (a fictional site).
 With --watch it reloads the files when readings are appended and regrids,
 keeping the cursor and your edits. Hand edits and settings changed in the
-UI are saved at once to the session file beside the first input.`
+UI are saved at once to the session file beside the first input. The
+export key writes every export (see isofield export --help) into a new
+directory isofield-export-DATE-TIME beside the first input (the current
+directory for the demo).`
 
 // viewSuggest is how many infill points the UI asks for when the command
 // line does not say.
@@ -39,7 +42,7 @@ func runView(e *env, args []string) error {
 	if err := sf.parse(fs, args); err != nil {
 		return err
 	}
-	opt := tui.Options{Watch: watch, NoColor: noColor}
+	opt := tui.Options{Watch: watch, NoColor: noColor, Version: version, ExportDir: "."}
 	cfg := sf.cfg
 	if cfg.Suggest == 0 {
 		cfg.Suggest = viewSuggest
@@ -52,6 +55,7 @@ func runView(e *env, args []string) error {
 		opt.Title = cfg.Survey.Name
 	} else {
 		opt.Title = titleOf(cfg.Files)
+		opt.ExportDir = filepath.Dir(cfg.Files[0])
 		if err := viewSession(fs, &cfg, &opt); err != nil {
 			return err
 		}

@@ -24,11 +24,13 @@
 // Saddles. A cell whose diagonal corners lie on the same side of a level and
 // its other two corners on the other side is ambiguous. Lines resolves it
 // by the mean of the four corner values (the value of the bilinear
-// interpolant at the cell's centre), the asymptotic-free "centre value"
-// rule of the marching-squares literature (Lorensen & Cline, Computer
-// Graphics 21(4), 1987, and its two-dimensional form): if the mean is on the
-// high side, the high corners are joined through the centre. The same mean
-// gives the cell's band in CellBands, so filled bands and lines agree.
+// interpolant at the cell's centre), the "centre value" rule of the
+// marching-cubes literature (Lorensen & Cline, Computer Graphics 21(4),
+// 1987, in its two-dimensional form, marching squares; the asymptotic
+// decider of Nielson & Hamann, IEEE Visualization 1991, is the costlier
+// alternative): if the mean is on the high side (>= the level), the high
+// corners are joined through the centre. The same mean gives the cell's
+// band in CellBands, so filled bands and lines agree.
 //
 // Zones. Components groups flagged nodes into 8-connected regions. Outline
 // traces each region as the union of node cells (DX × DY rectangles centred

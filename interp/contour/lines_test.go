@@ -252,9 +252,13 @@ func TestLinesCancelled(t *testing.T) {
 func BenchmarkLines(b *testing.B) {
 	for _, n := range []int{200, 500, 1000} {
 		g := interp.NewGridN(0, 0, 1, 1, n, n)
+		// Two buried sources of opposite sign, 5 % of the side deep.
+		s := float64(n)
+		d2 := 0.05 * s * 0.05 * s
 		fill(g, func(x, y float64) float64 {
-			s := float64(n)
-			return 1/math.Hypot(x-0.3*s, y-0.4*s+0.5) - 1/math.Hypot(x-0.7*s+0.5, y-0.6*s)
+			a := (x-0.3*s)*(x-0.3*s) + (y-0.4*s)*(y-0.4*s)
+			b := (x-0.7*s)*(x-0.7*s) + (y-0.6*s)*(y-0.6*s)
+			return 1/math.Sqrt(a+d2) - 1/math.Sqrt(b+d2)
 		})
 		lo, hi, _ := Range(g)
 		levels := Levels(lo, hi, NiceInterval(lo, hi))

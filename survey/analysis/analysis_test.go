@@ -183,3 +183,34 @@ func BenchmarkAnalyze(b *testing.B) {
 		})
 	}
 }
+
+// TestAutoFieldThreshold: the cp and sp presets without --threshold flag
+// the top 5 % of the field. On V = x² over [−4, 4]² the field is 2|x|, so
+// the threshold is 2·0.95·4 = 7.6 V/m to within one column of nodes, and
+// about 5 % of the nodes are flagged.
+func TestAutoFieldThreshold(t *testing.T) {
+	sq := quadratic{}
+	for _, preset := range []string{criteria.CP, criteria.SP} {
+		t.Run(preset, func(t *testing.T) {
+			r, g := analyse(t, sq, 4, 0.05, criteria.Settings{Preset: preset}, "V")
+			if math.Abs(r.FieldThreshold-7.6) > 2*0.05*2 {
+				t.Errorf("automatic threshold %g V/m, want 7.6 (95th percentile of 2|x|)", r.FieldThreshold)
+			}
+			n := 0
+			for _, z := range r.Zones {
+				if z.Quantity == QuantityField {
+					n += z.Nodes
+				}
+			}
+			if share := float64(n) / float64(g.Len()); math.Abs(share-0.05) > 0.01 {
+				t.Errorf("%.3f of the nodes flagged on the field, want about 0.05", share)
+			}
+		})
+	}
+}
+
+// quadratic is V = x².
+type quadratic struct{}
+
+func (quadratic) Value(x, y float64) float64               { return x * x }
+func (quadratic) Gradient(x, y float64) (float64, float64) { return 2 * x, 0 }

@@ -52,33 +52,48 @@ func TestStepVoltageUniformField(t *testing.T) {
 }
 
 // TestStepGridMatchesPointwise checks the parallel grid pass against the
-// single-point function, and NaN at masked nodes.
+// single-point function: equal on a coarse grid, where the interpolant is
+// sampled directly, and within 1 % (see hermiteMaxSpacing) on grids read
+// through a Hermite surface, refined or their own; NaN at masked nodes.
 func TestStepGridMatchesPointwise(t *testing.T) {
 	hs := halfSpace{rho: 100, src: []source{{0.3, 0.2, 1, 10}, {-3, 2, 0.7, -5}}}
-	g := interp.NewGridN(-5, -5, 0.5, 0.5, 21, 21)
-	g.Mask[7] = true
-	evaluate(g, hs)
-	st, err := StepGrid(context.Background(), hs, g)
-	if err != nil {
-		t.Fatal(err)
+	tests := []struct {
+		name string
+		h    float64
+		tol  float64
+	}{
+		{"direct", 2, 0},
+		{"refined", 0.5, 0.01},
+		{"own surface", 0.2, 0.01},
 	}
-	for j := range g.NY {
-		for i := range g.NX {
-			k := g.Index(i, j)
-			x, y := g.Node(i, j)
-			if k == 7 {
-				if !math.IsNaN(st[k]) {
-					t.Errorf("masked node has step %g", st[k])
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			g, _ := interp.NewGrid(-6, -6, 6, 6, tt.h, 0)
+			g.Mask[7] = true
+			evaluate(g, hs)
+			st, err := StepGrid(context.Background(), hs, g)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for j := range g.NY {
+				for i := range g.NX {
+					k := g.Index(i, j)
+					x, y := g.Node(i, j)
+					want := StepVoltage(hs, x, y)
+					switch {
+					case k == 7 && !math.IsNaN(st[k]):
+						t.Errorf("masked node has step %g", st[k])
+					case k != 7 && !(math.Abs(st[k]-want) <= tt.tol*want):
+						t.Fatalf("node (%g, %g): grid %g, pointwise %g (tolerance %g)", x, y, st[k], want, tt.tol)
+					}
 				}
-				continue
 			}
-			if want := StepVoltage(hs, x, y); st[k] != want {
-				t.Fatalf("node (%d, %d): grid %g, pointwise %g", i, j, st[k], want)
-			}
-		}
+		})
 	}
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
+	g := interp.NewGridN(0, 0, 2, 2, 5, 5)
+	evaluate(g, hs)
 	if _, err := StepGrid(ctx, hs, g); err == nil {
 		t.Errorf("StepGrid with a cancelled context returned no error")
 	}
@@ -135,6 +150,36 @@ func BenchmarkStepGrid(b *testing.B) {
 		b.Run(fmt.Sprintf("n=%dx%d", n, n), func(b *testing.B) {
 			for b.Loop() {
 				if _, err := StepGrid(context.Background(), hs, g); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
+
+// BenchmarkStepGridModel measures the step pass on a fitted thin-plate
+// spline of 500 readings: at 1 m spacing it evaluates the model (35 values
+// per node), at 0.25 m the grid's Hermite surface.
+func BenchmarkStepGridModel(b *testing.B) {
+	hs := halfSpace{rho: 100, src: []source{{-20, 5, 2, 10}, {25, -10, 3, -10}}}
+	rng := rand.New(rand.NewPCG(11, 12))
+	var xs, ys, vs []float64
+	for range 500 {
+		x, y := rng.Float64()*100-50, rng.Float64()*100-50
+		xs, ys, vs = append(xs, x), append(ys, y), append(vs, hs.Value(x, y))
+	}
+	m, err := interp.Fit(context.Background(), xs, ys, vs, interp.Options{})
+	if err != nil {
+		b.Skipf("interp.Fit: %v", err)
+	}
+	for _, h := range []float64{1, 0.25} {
+		g, _ := interp.NewGrid(-50, -50, 50, 50, h, 0)
+		if err := interp.Evaluate(context.Background(), m, g, nil); err != nil {
+			b.Fatal(err)
+		}
+		b.Run(fmt.Sprintf("N=500/h=%g/n=%dx%d", h, g.NX, g.NY), func(b *testing.B) {
+			for b.Loop() {
+				if _, err := StepGrid(context.Background(), m, g); err != nil {
 					b.Fatal(err)
 				}
 			}

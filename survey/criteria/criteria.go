@@ -221,10 +221,6 @@ func Prepare(s *survey.Survey, corrected []float64, set Settings) (values []floa
 		if set.Scale == electrode.None {
 			notes = append(notes, "reference electrode not stated: readings are taken to be versus CSE")
 		}
-	case Grounding:
-		if !set.FaultScaled {
-			notes = append(notes, "readings are not scaled to a fault current: step and touch voltages are those of the test current, not comparable with tolerable voltages")
-		}
 	}
 	return values, notes, nil
 }

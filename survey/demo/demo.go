@@ -59,7 +59,7 @@ const (
 	Resistivity = 80.0 // Ω·m, homogeneous ground
 	Width       = 60.0 // metres, x extent of the surveyed yard
 	Height      = 40.0 // metres, y extent
-	LineStep    = 4.0  // metres between survey lines (lines run along x)
+	LineStep    = 2.5  // metres between survey lines (lines run along x)
 	StationStep = 2.5  // metres between stations on a line
 	BaseID      = "BASE"
 	driftPerDay = 12.0 // mV of reference drift over the working day
@@ -71,15 +71,15 @@ const (
 // return current.
 func Sources() []Source {
 	return []Source{
-		{X: 18, Y: 22, Depth: 1.0, I: 0.5},
-		{X: 48, Y: 10, Depth: 1.5, I: -0.35},
-		{X: 44, Y: 33, Depth: 2.0, I: -0.15},
+		{X: 18, Y: 22, Depth: 3.0, I: 0.5},
+		{X: 48, Y: 10, Depth: 3.5, I: -0.35},
+		{X: 44, Y: 33, Depth: 4.0, I: -0.15},
 	}
 }
 
 // Survey returns the demo survey in millivolts: lines every LineStep metres
 // with stations every StationStep metres, walked in boustrophedon order,
-// the base station re-read at the start of every second line.
+// the base station re-read at the start of every third line.
 func Survey() *survey.Survey {
 	rng := rand.New(rand.NewPCG(20260314, 7))
 	src := Sources()
@@ -101,7 +101,7 @@ func Survey() *survey.Survey {
 	}
 	for l := 0; l < nLines; l++ {
 		y := float64(l) * LineStep
-		if l%2 == 0 {
+		if l%3 == 0 {
 			add(BaseID, "", "", "base station", -3, -3, 0)
 		}
 		for k := 0; k < nSt; k++ {
@@ -114,14 +114,14 @@ func Survey() *survey.Survey {
 			jx, jy := 0.05*rng.NormFloat64(), 0.05*rng.NormFloat64()
 			id := fmt.Sprintf("L%02d-S%02d", l, st)
 			extra, note := 0.0, ""
-			if l == 6 && st == 9 {
+			if l == 9 && st == 9 {
 				extra, note = 95, "" // a slip of the pen: 95 mV too high
 			}
 			add(id, fmt.Sprint(l), fmt.Sprint(st), note, x+jx, y+jy, extra)
 		}
-		if l == 4 {
+		if l == 6 {
 			// Re-measured point after a cable check.
-			add("L04-S12", "4", "12", "re-read after cable check", 30.02, 16.01, 0)
+			add("L06-S12", "6", "12", "re-read after cable check", 30.02, 15.01, 0)
 		}
 	}
 	add(BaseID, "", "", "base station, close of day", -3, -3, 0)

@@ -2,18 +2,27 @@ package export
 
 import (
 	"context"
+	"crypto/sha256"
+	"encoding/hex"
 	"fmt"
 	"io"
 	"math"
 	"path/filepath"
+	"strings"
+	"time"
 
+	"isofield/interp"
 	"isofield/survey/fileout"
+	"isofield/survey/geo"
 	"isofield/survey/pipeline"
+	"isofield/survey/qa"
 )
 
 // The files All writes into its directory. The names are fixed: scripts
 // and the README rely on them.
 const (
+	FileCleanCSV        = "readings_clean.csv" // every reading, corrected value and QA status (see qa.WriteCleanCSV)
+	FileQALog           = "qa_log.txt"         // every logged correction and status change
 	FileGridCSV         = "grid.csv"           // grid CSV contract, plus band (and step/touch) columns
 	FilePotentialMatrix = "grid_potential.csv" // matrix form of the potential
 	FileFieldMatrix     = "grid_field.csv"     // matrix form of |E|
@@ -27,37 +36,57 @@ const (
 	FileFieldSVG        = "map_field.svg"      // field map
 	FileFieldPNG        = "map_field.png"      // the same at MapDPI
 	FileReport          = "report.html"        // the survey report
+	FileInfo            = "export_info.txt"    // version, settings, inputs and SHA-256 of every file written
 )
 
 // GridColumns returns the flags and the extra columns of the grid CSV for a
 // pipeline result: flagged from the analysis, then "band" (the node's
-// contour band, see contour.Band) and, where the preset computes them,
-// "step_U" and "touch_U". Without an analysis nothing is flagged and there
-// are no extra columns.
+// contour band, see contour.Band), "step_U" and "touch_U" where the preset
+// computes them, and for surveys read from latitude and longitude
+// "lat_deg" and "lon_deg" (WGS 84) of every node. Without an analysis
+// nothing is flagged.
 func GridColumns(res *pipeline.Result) (flagged []bool, extra []Column) {
-	a := res.Analysis
-	if a == nil {
-		return nil, nil
-	}
-	flagged = a.Flagged
-	if len(a.NodeBand) == res.Grid.Len() {
-		band := make([]float64, len(a.NodeBand))
-		for k, b := range a.NodeBand {
-			band[k] = float64(b)
-			if b < 0 {
-				band[k] = math.NaN()
+	n := res.Grid.Len()
+	if a := res.Analysis; a != nil {
+		flagged = a.Flagged
+		if len(a.NodeBand) == n {
+			band := make([]float64, n)
+			for k, b := range a.NodeBand {
+				band[k] = float64(b)
+				if b < 0 {
+					band[k] = math.NaN()
+				}
 			}
+			extra = append(extra, Column{Name: "band", Values: band})
 		}
-		extra = append(extra, Column{Name: "band", Values: band})
+		unit := res.Survey.Unit.String()
+		if len(a.Step) == n {
+			extra = append(extra, Column{Name: "step_" + unit, Values: a.Step})
+		}
+		if len(a.Touch) == n {
+			extra = append(extra, Column{Name: "touch_" + unit, Values: a.Touch})
+		}
 	}
-	unit := res.Survey.Unit.String()
-	if len(a.Step) == res.Grid.Len() {
-		extra = append(extra, Column{Name: "step_" + unit, Values: a.Step})
-	}
-	if len(a.Touch) == res.Grid.Len() {
-		extra = append(extra, Column{Name: "touch_" + unit, Values: a.Touch})
+	if geo := res.Survey.Geo; geo != nil {
+		extra = append(extra, latLonColumns(res.Grid, geo.Lat0, geo.Lon0)...)
 	}
 	return flagged, extra
+}
+
+// latLonColumns returns the WGS 84 latitude and longitude of every node of
+// g, whose metres are on the tangent plane at (lat0, lon0); nil when the
+// origin is invalid.
+func latLonColumns(g *interp.Grid, lat0, lon0 float64) []Column {
+	p, err := geo.NewPlane(lat0, lon0)
+	if err != nil {
+		return nil
+	}
+	lat, lon := make([]float64, g.Len()), make([]float64, g.Len())
+	for k := range lat {
+		x, y := g.Node(k%g.NX, k/g.NX)
+		lat[k], lon[k] = p.Inverse(x, y)
+	}
+	return []Column{{Name: "lat_deg", Values: lat}, {Name: "lon_deg", Values: lon}}
 }
 
 // All writes every export of a pipeline result into dir (which must
@@ -74,21 +103,56 @@ func All(ctx context.Context, dir string, res *pipeline.Result, cfg pipeline.Con
 	flagged, extra := GridColumns(res)
 	jobs := b.jobs(flagged, extra)
 	fo := fileout.Options{Force: opt.Force, Inputs: b.inputs(opt)}
-	if err := precheck(dir, jobs, fo); err != nil {
+	if err := precheck(dir, append(jobs, job{name: FileInfo}), fo); err != nil {
 		return nil, err
 	}
 	var done []string
+	var sums [][2]string
 	for _, j := range jobs {
 		if err := ctx.Err(); err != nil {
 			return done, err
 		}
 		path := filepath.Join(dir, j.name)
-		if err := fileout.Write(path, fo, j.write); err != nil {
+		h := sha256.New()
+		if err := fileout.Write(path, fo, func(w io.Writer) error { return j.write(io.MultiWriter(w, h)) }); err != nil {
 			return done, err
 		}
 		done = append(done, path)
+		sums = append(sums, [2]string{j.name, hex.EncodeToString(h.Sum(nil))})
 	}
-	return done, nil
+	path := filepath.Join(dir, FileInfo)
+	if err := fileout.Write(path, fo, func(w io.Writer) error { return b.writeInfo(w, sums) }); err != nil {
+		return done, err
+	}
+	return append(done, path), nil
+}
+
+// writeInfo writes what made the export and the SHA-256 of each file, so
+// that outputs whose format has no room for it (the grid CSV contract, the
+// matrices) can be traced too.
+func (b *Bundle) writeInfo(w io.Writer, sums [][2]string) error {
+	var sb strings.Builder
+	fmt.Fprintf(&sb, "# isofield export\nmade_by = isofield %s\n", b.Version)
+	if !b.Made.IsZero() {
+		fmt.Fprintf(&sb, "made = %s\n", b.Made.UTC().Format(time.RFC3339))
+	}
+	fmt.Fprintf(&sb, "title = %s\npositions = %s\nunit = %s\n", b.Title, b.positionSystem(), b.Unit)
+	if b.Survey != nil {
+		for _, f := range b.Survey.Files {
+			fmt.Fprintf(&sb, "input = %s sha256:%s\n", f.Path, f.SHA256)
+		}
+	}
+	for _, s := range b.Settings {
+		fmt.Fprintf(&sb, "setting = %s: %s\n", s.Name, s.Value)
+	}
+	for _, r := range b.CriterionLines() {
+		fmt.Fprintf(&sb, "flagged_where = %s\n", r)
+	}
+	for _, s := range sums {
+		fmt.Fprintf(&sb, "output = %s sha256:%s\n", s[0], s[1])
+	}
+	_, err := io.WriteString(w, sb.String())
+	return err
 }
 
 // job is one output file.
@@ -103,7 +167,13 @@ func (b *Bundle) jobs(flagged []bool, extra []Column) []job {
 	matrices := []string{"potential (" + b.Unit + "): " + FilePotentialMatrix, "field |E| (" + b.Unit + "/m): " + FileFieldMatrix}
 	pot := b.usable(func(k int) float64 { return g.V[k] })
 	fld := b.usable(func(k int) float64 { return math.Hypot(g.GX[k], g.GY[k]) })
-	return []job{
+	var js []job
+	if b.qa != nil && b.Survey != nil {
+		js = append(js,
+			job{FileCleanCSV, func(w io.Writer) error { return qa.WriteCleanCSV(w, b.Survey, b.qa) }},
+			job{FileQALog, func(w io.Writer) error { return qa.WriteLog(w, b.Survey, b.qa) }})
+	}
+	return append(js, []job{
 		{FileGridCSV, func(w io.Writer) error { return WriteGridCSV(w, g, b.Unit, flagged, extra) }},
 		{FilePotentialMatrix, func(w io.Writer) error { return WriteMatrix(w, g, pot) }},
 		{FileFieldMatrix, func(w io.Writer) error { return WriteMatrix(w, g, fld) }},
@@ -113,11 +183,11 @@ func (b *Bundle) jobs(flagged []bool, extra []Column) []job {
 		{FileReadings, b.WriteReadingsGeoJSON},
 		{FileInfill, b.WriteInfillGeoJSON},
 		{FileMapSVG, func(w io.Writer) error { return b.WriteMapSVG(w, PotentialMap) }},
-		{FileMapPNG, func(w io.Writer) error { return b.WriteMapPNG(w, PotentialMap, MapDPI) }},
+		{FileMapPNG, func(w io.Writer) error { return b.WriteMapPNG(w, PotentialMap, b.dpi) }},
 		{FileFieldSVG, func(w io.Writer) error { return b.WriteMapSVG(w, FieldMap) }},
-		{FileFieldPNG, func(w io.Writer) error { return b.WriteMapPNG(w, FieldMap, MapDPI) }},
+		{FileFieldPNG, func(w io.Writer) error { return b.WriteMapPNG(w, FieldMap, b.dpi) }},
 		{FileReport, b.WriteReport},
-	}
+	}...)
 }
 
 // inputs lists the files never to be written: the survey's and opt's.

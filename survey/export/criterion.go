@@ -9,7 +9,7 @@ func (b *Bundle) CriterionLines() []string {
 	c := b.Criterion
 	var out []string
 	if b.FieldThreshold > 0 {
-		s := fmt.Sprintf("field |E| ≥ %.4g %s/m", b.FieldThreshold, b.Unit)
+		s := fmt.Sprintf("field |E| ≥ %.6g %s/m", b.FieldThreshold, b.Unit)
 		if c != nil && c.FieldLabel != "" {
 			s += " (" + c.FieldLabel + ")"
 		}
@@ -25,10 +25,10 @@ func (b *Bundle) CriterionLines() []string {
 		out = append(out, c.AboveLabel)
 	}
 	if c.Step {
-		out = append(out, fmt.Sprintf("step voltage above the tolerable %.4g %s", c.StepLimit, b.Unit))
+		out = append(out, fmt.Sprintf("step voltage above the tolerable %.6g %s", c.StepLimit, b.Unit))
 	}
 	if c.Touch {
-		out = append(out, fmt.Sprintf("touch voltage above the tolerable %.4g %s", c.TouchLimit, b.Unit))
+		out = append(out, fmt.Sprintf("touch voltage above the tolerable %.6g %s", c.TouchLimit, b.Unit))
 	}
 	return out
 }

@@ -26,7 +26,7 @@ func FromResult(ctx context.Context, res *pipeline.Result, cfg pipeline.Config, 
 	s, g := res.Survey, res.Grid
 	b := &Bundle{
 		Title: opt.Title, Unit: s.Unit.String(), Version: opt.Version, Made: opt.Made,
-		Survey: s, Grid: g, Notes: append(append([]string(nil), s.Notes...), res.Notes...),
+		Survey: s, Grid: g, qa: res.QA, dpi: opt.DPI, Notes: append(append([]string(nil), s.Notes...), res.Notes...),
 	}
 	if b.Title == "" {
 		b.Title = surveyTitle(s)

@@ -9,7 +9,7 @@ import (
 	"sync"
 
 	"isofield/interp"
-	"isofield/survey/export/cell"
+	"isofield/survey/qa"
 )
 
 // Column is an extra grid column appended after the fixed ones. Values has
@@ -66,7 +66,7 @@ func WriteGridCSV(w io.Writer, g *interp.Grid, unit string, flagged []bool, extr
 	}
 	for _, c := range extra {
 		head = append(head, ',')
-		head = append(head, cell.Neutral(c.Name)...)
+		head = append(head, qa.Neutralise(c.Name)...)
 	}
 	head = append(head, '\n')
 	if _, err := w.Write(head); err != nil {
@@ -120,7 +120,7 @@ func appendGridRow(buf []byte, g *interp.Grid, i, j int, flagged []bool, extra [
 	if g.Mask[k] || math.IsNaN(v) {
 		buf = append(buf, ",,,,,0"...)
 	} else {
-		ex, ey := -g.GX[k], -g.GY[k]
+		ex, ey := 0-g.GX[k], 0-g.GY[k] // 0 - v, not -v: no "-0" cells
 		buf = appendCell(buf, v)
 		buf = appendCell(buf, ex)
 		buf = appendCell(buf, ey)

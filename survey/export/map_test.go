@@ -19,7 +19,7 @@ func TestMapSVGGolden(t *testing.T) {
 				t.Fatal(err)
 			}
 			var again bytes.Buffer
-			if err := b.WriteMapSVG(&again, tt.kind); err != nil {
+			if err := fixtureBundle(t, false).WriteMapSVG(&again, tt.kind); err != nil {
 				t.Fatal(err)
 			}
 			if !bytes.Equal(buf.Bytes(), again.Bytes()) {
@@ -61,6 +61,7 @@ func BenchmarkMap(b *testing.B) {
 	bd := fixtureBundle(b, false)
 	b.Run("svg", func(b *testing.B) {
 		for b.Loop() {
+			bd.svg = nil // draw again rather than reuse the kept drawing
 			var buf bytes.Buffer
 			if err := bd.WriteMapSVG(&buf, PotentialMap); err != nil {
 				b.Fatal(err)

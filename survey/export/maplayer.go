@@ -54,10 +54,10 @@ func (b *Bundle) usable(f func(k int) float64) func(k int) float64 {
 
 // mapLayer draws everything inside the plot's data area.
 type mapLayer struct {
-	b      *Bundle
-	kind   MapKind
-	ly     *layer
-	rw, rh int
+	b    *Bundle
+	kind MapKind
+	ly   *layer
+	dpi  int // resolution of the band image
 }
 
 // DataRange is the grid's node extent joined with the readings'.
@@ -79,7 +79,9 @@ func (m *mapLayer) Plot(c draw.Canvas, p *plot.Plot) {
 	g := m.b.Grid
 	x0, y0 := g.Node(0, 0)
 	x1, y1 := g.Node(g.NX-1, g.NY-1)
-	c.DrawImage(vg.Rectangle{Min: tr(x0, y0), Max: tr(x1, y1)}, m.ly.rasterize(m.rw, m.rh))
+	r := vg.Rectangle{Min: tr(x0, y0), Max: tr(x1, y1)}
+	px := func(l vg.Length) int { return max(1, int(math.Ceil(l.Points()/72*float64(m.dpi)))) }
+	c.DrawImage(r, m.ly.rasterize(px(r.Size().X), px(r.Size().Y)))
 	if m.kind == PotentialMap {
 		m.drawLines(c, tr)
 	}

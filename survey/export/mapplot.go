@@ -1,6 +1,7 @@
 package export
 
 import (
+	"bytes"
 	"fmt"
 	"image/color"
 	"io"
@@ -38,18 +39,32 @@ const (
 const (
 	legendWidth  = 2.7 * vg.Inch
 	footerHeight = 0.45 * vg.Inch
-	maxRaster    = 1600 // pixels along the longer side of the band image
+	// svgRasterDPI is the resolution of the band image inside SVG maps;
+	// PNG maps draw it at their own resolution.
+	svgRasterDPI = 150
 )
 
 // WriteMapSVG draws the map picture of the given kind as SVG, MapWidth ×
 // MapHeight points. The output depends only on the bundle (no time stamp
 // unless Bundle.Made is set), so it can be compared with golden files.
+// The drawing is kept, so the report reuses it; change no field of b after
+// the first call.
 func (b *Bundle) WriteMapSVG(w io.Writer, kind MapKind) error {
-	c := vgsvg.New(MapWidth, MapHeight)
-	if err := b.drawMap(draw.New(c), kind); err != nil {
-		return err
+	if b.svg[kind] == nil {
+		c := vgsvg.New(MapWidth, MapHeight)
+		if err := b.drawMap(draw.New(c), kind, svgRasterDPI); err != nil {
+			return err
+		}
+		var buf bytes.Buffer
+		if _, err := c.WriteTo(&buf); err != nil {
+			return fmt.Errorf("drawing svg map: %w", err)
+		}
+		if b.svg == nil {
+			b.svg = map[MapKind][]byte{}
+		}
+		b.svg[kind] = buf.Bytes()
 	}
-	if _, err := c.WriteTo(w); err != nil {
+	if _, err := w.Write(b.svg[kind]); err != nil {
 		return fmt.Errorf("writing svg map: %w", err)
 	}
 	return nil
@@ -62,7 +77,7 @@ func (b *Bundle) WriteMapPNG(w io.Writer, kind MapKind, dpi int) error {
 		dpi = MapDPI
 	}
 	c := vgimg.NewWith(vgimg.UseWH(MapWidth, MapHeight), vgimg.UseDPI(dpi), vgimg.UseBackgroundColor(color.White))
-	if err := b.drawMap(draw.New(c), kind); err != nil {
+	if err := b.drawMap(draw.New(c), kind, dpi); err != nil {
 		return err
 	}
 	if _, err := (vgimg.PngCanvas{Canvas: c}).WriteTo(w); err != nil {
@@ -81,7 +96,7 @@ func MapPixels(dpi int) (w, h int) {
 }
 
 // drawMap lays out the plot, the legend panel and the footer on c.
-func (b *Bundle) drawMap(c draw.Canvas, kind MapKind) error {
+func (b *Bundle) drawMap(c draw.Canvas, kind MapKind, dpi int) error {
 	if b.Grid == nil || b.Grid.Len() == 0 {
 		return fmt.Errorf("map: no grid to draw")
 	}
@@ -92,7 +107,7 @@ func (b *Bundle) drawMap(c draw.Canvas, kind MapKind) error {
 	legC := draw.Crop(body, body.Size().X-legendWidth, 0, 0, 0)
 	footC := draw.Crop(c, 0, 0, 0, -(c.Size().Y - footerHeight))
 	ly := b.layerFor(kind)
-	p := b.newPlot(kind, ly)
+	p := b.newPlot(kind, ly, dpi)
 	fitAspect(p, mapC)
 	p.Draw(mapC)
 	b.drawLegend(legC, kind, ly)
@@ -101,7 +116,7 @@ func (b *Bundle) drawMap(c draw.Canvas, kind MapKind) error {
 }
 
 // newPlot makes the plot with its axes and the map layer.
-func (b *Bundle) newPlot(kind MapKind, ly *layer) *plot.Plot {
+func (b *Bundle) newPlot(kind MapKind, ly *layer, dpi int) *plot.Plot {
 	p := plot.New()
 	p.Title.Text = b.Title + " · " + map[MapKind]string{
 		PotentialMap: "potential (" + b.Unit + ")",
@@ -113,15 +128,7 @@ func (b *Bundle) newPlot(kind MapKind, ly *layer) *plot.Plot {
 		p.X.Label.Text, p.Y.Label.Text = "east of origin (m)", "north of origin (m)"
 	}
 	p.X.Tick.Marker, p.Y.Tick.Marker = plainTicks{}, plainTicks{}
-	w := b.Grid.DX * float64(b.Grid.NX-1)
-	h := b.Grid.DY * float64(b.Grid.NY-1)
-	rw, rh := maxRaster, maxRaster
-	if w >= h {
-		rh = max(1, int(math.Round(maxRaster*h/max(w, 1e-300))))
-	} else {
-		rw = max(1, int(math.Round(maxRaster*w/h)))
-	}
-	p.Add(&mapLayer{b: b, kind: kind, ly: ly, rw: rw, rh: rh})
+	p.Add(&mapLayer{b: b, kind: kind, ly: ly, dpi: dpi})
 	return p
 }
 

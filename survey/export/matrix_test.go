@@ -2,6 +2,7 @@ package export
 
 import (
 	"bytes"
+	"context"
 	"encoding/csv"
 	"math"
 	"strconv"
@@ -73,5 +74,36 @@ func checkMatrixCell(t *testing.T, g *interp.Grid, ref Georef, r, c int, cell st
 	}
 	if want := g.V[g.Index(i, j)]; !sameFloat(v, want) {
 		t.Fatalf("cell (%d,%d) = %v, node (%d,%d) = %v", r, c, v, i, j, want)
+	}
+}
+
+// TestGridFilesGolden pins the grid CSV (with the analysis's extra
+// columns), the potential matrix and the sidecar of the fixed survey.
+func TestGridFilesGolden(t *testing.T) {
+	res, cfg := fixtureSurvey(false)
+	b, err := FromResult(context.Background(), res, cfg, Options{Version: "test"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	flagged, extra := GridColumns(res)
+	g := b.Grid
+	files := []struct {
+		name  string
+		write func(*bytes.Buffer) error
+	}{
+		{"grid.csv", func(w *bytes.Buffer) error { return WriteGridCSV(w, g, b.Unit, flagged, extra) }},
+		{"grid_potential.csv", func(w *bytes.Buffer) error { return WriteMatrix(w, g, func(k int) float64 { return g.V[k] }) }},
+		{"grid_georef.txt", func(w *bytes.Buffer) error {
+			return WriteGeoref(w, b.georefOf([]string{"potential (mV): grid_potential.csv"}))
+		}},
+	}
+	for _, f := range files {
+		t.Run(f.name, func(t *testing.T) {
+			var buf bytes.Buffer
+			if err := f.write(&buf); err != nil {
+				t.Fatal(err)
+			}
+			golden(t, f.name, buf.Bytes())
+		})
 	}
 }

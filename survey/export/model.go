@@ -9,6 +9,7 @@ import (
 	"isofield/survey/analysis"
 	"isofield/survey/criteria"
 	"isofield/survey/geo"
+	"isofield/survey/qa"
 )
 
 // Bundle is everything the exports draw on, gathered once from a pipeline
@@ -46,6 +47,10 @@ type Bundle struct {
 	// Plane converts local metres back to WGS 84 when the survey was read
 	// from latitude and longitude; nil for local or projected metres.
 	Plane *geo.Plane
+
+	qa  *qa.Result // for the cleaned readings and the log (nil: not written)
+	dpi int        // PNG resolution (0: MapDPI)
+	svg map[MapKind][]byte
 }
 
 // Setting is one setting that made the outputs, as shown to the reader.

@@ -4,6 +4,8 @@ import (
 	"image"
 	"image/color"
 	"math"
+	"runtime"
+	"sync"
 
 	"isofield/interp"
 	"isofield/interp/contour"
@@ -23,21 +25,34 @@ type layer struct {
 // pixel takes the band of the bilinear interpolation of its cell's corners
 // (the surface marching squares contours), or of the nearest node when a
 // corner is unusable; pixels with no usable value are transparent.
+// Rows are shared out among all cores.
 func (l *layer) rasterize(w, h int) *image.RGBA {
-	g := l.grid
 	img := image.NewRGBA(image.Rect(0, 0, w, h))
-	for py := range h {
-		fy := (1 - (float64(py)+0.5)/float64(h)) * float64(g.NY-1)
-		for px := range w {
-			fx := (float64(px) + 0.5) / float64(w) * float64(g.NX-1)
-			v := l.sample(fx, fy)
-			if math.IsNaN(v) {
-				continue
+	workers := max(1, min(runtime.GOMAXPROCS(0), h))
+	var wg sync.WaitGroup
+	for p := range workers {
+		wg.Go(func() {
+			for py := p; py < h; py += workers {
+				l.rasterRow(img, py, w, h)
 			}
-			img.SetRGBA(px, py, l.colours[contour.Band(v, l.levels)])
-		}
+		})
 	}
+	wg.Wait()
 	return img
+}
+
+// rasterRow fills image row py.
+func (l *layer) rasterRow(img *image.RGBA, py, w, h int) {
+	g := l.grid
+	fy := (1 - (float64(py)+0.5)/float64(h)) * float64(g.NY-1)
+	for px := range w {
+		fx := (float64(px) + 0.5) / float64(w) * float64(g.NX-1)
+		v := l.sample(fx, fy)
+		if math.IsNaN(v) {
+			continue
+		}
+		img.SetRGBA(px, py, l.colours[contour.Band(v, l.levels)])
+	}
 }
 
 // sample returns the value at fractional node position (fx, fy).

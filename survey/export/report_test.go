@@ -76,9 +76,8 @@ func checkSVG(t *testing.T, b64 string) {
 }
 
 func BenchmarkReport(b *testing.B) {
-	bd := fixtureBundle(b, false)
 	for b.Loop() {
-		if err := bd.WriteReport(io.Discard); err != nil {
+		if err := fixtureBundle(b, false).WriteReport(io.Discard); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -24,6 +24,8 @@ type Options struct {
 	Force bool
 	// Inputs are files never to be written, besides the survey's own files.
 	Inputs []string
+	// DPI is the resolution of PNG maps (0: MapDPI).
+	DPI int
 }
 
 // SettingsOf describes the configuration that made res, with what the fit

@@ -164,13 +164,10 @@ func frac(d, t int) float64 {
 // selectReadings returns the positions and values of readings to grid.
 func selectReadings(s *survey.Survey, q *qa.Result, vals []float64, useSuspects bool) (xs, ys, vs []float64, idx []int) {
 	for i, r := range s.Readings {
-		switch q.Status[i] {
-		case qa.Excluded:
+		// Not excluded, not suspect unless asked, and agreeing repeats
+		// once (see qa.Result.Use).
+		if !q.Use(i, useSuspects) {
 			continue
-		case qa.Suspect:
-			if !useSuspects {
-				continue
-			}
 		}
 		if math.IsNaN(vals[i]) {
 			continue

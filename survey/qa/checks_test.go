@@ -365,3 +365,24 @@ func hasRemark(r *Result, sub string) bool {
 	}
 	return sub == ""
 }
+
+// TestExcludedBaseReadingLeftOut: a base reading excluded by hand takes no
+// part in the drift curve.
+func TestExcludedBaseReadingLeftOut(t *testing.T) {
+	b := newBuilder("d.csv", survey.Millivolt)
+	b.add("B", 0, 0, -100)
+	b.add("P1", 1, 0, -200)
+	b.add("B", 0, 0, -160) // a bad base reading (cable fault)
+	b.add("P2", 2, 0, -210)
+	b.add("B", 0, 0, -104)
+	edits := []Edit{{File: "d.csv", Line: 4, ID: "B", Exclude: true, Reason: "cable fault"}}
+	r := mustRun(t, b.s, Settings{Base: "B", SpikeK: -1}, edits)
+	if r.Drift == nil || len(r.Drift.B) != 2 || r.Drift.LoopClosure != -4 {
+		t.Fatalf("drift %+v, want a curve through the two good base readings", r.Drift)
+	}
+	// P2 is read at position 3 of 4 between the base readings at 0 and
+	// 4: drift −3 mV, corrected −207.
+	if math.Abs(r.Corrected[3]+207) > 1e-9 || r.Status[2] != Excluded {
+		t.Errorf("P2 corrected %g (want -207), bad base status %v", r.Corrected[3], r.Status[2])
+	}
+}

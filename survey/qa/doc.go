@@ -36,9 +36,13 @@
 //     the global fit, the local equivalent for large surveys) is fitted to
 //     one value per spot, over readings neither suspect nor excluded by
 //     hand. A reading whose leave-one-out residual r has a robust z =
-//     (r − median) / (1.4826 MAD) beyond Settings.SpikeK, and whose
-//     |r − median| also exceeds the repeat tolerance (no reading is a spike
-//     by less than the measurement repeats to), is a candidate. A candidate
+//     (r − median) / (1.4826 MAD · g) beyond Settings.SpikeK, and whose
+//     |r − median| / g also exceeds the repeat tolerance (no reading is a
+//     spike by less than the measurement repeats to), is a candidate. The
+//     gap factor g = max(1, (d/h)²), d the distance to the reading's
+//     nearest neighbour and h the survey's typical spacing, allows for the
+//     larger interpolation error expected in a gap or on a sharp peak
+//     sampled sparsely; on a regular grid g is 1. A candidate
 //     is marked suspect only when it stands alone: if one of its six
 //     nearest spots (within 2.5 times the typical spacing) is a candidate
 //     of the same sign deviating at least half as much, the readings disagree

@@ -4,6 +4,8 @@ import (
 	"math"
 	"strconv"
 	"testing"
+
+	"isofield/interp"
 )
 
 // TestDriftRecoversTruth plants a linear drift on readings of a closed-form
@@ -111,5 +113,38 @@ func TestDriftAndSpikes(t *testing.T) {
 	}
 	if used != 1 {
 		t.Errorf("base station gridded %d times, want once", used)
+	}
+}
+
+// TestSpikesLocalFit runs the same check on a survey large enough for the
+// partition-of-unity fit (2,600 readings on a 0.4 m grid of the
+// closed-form field), whose leave-one-out residuals are the local
+// equivalent of Rippa's. Every planted spike must be caught and at most
+// 1 % of clean readings flagged.
+func TestSpikesLocalFit(t *testing.T) {
+	spikes := map[int]float64{101: 40, 777: -35, 1290: 60, 1800: -30, 2333: 45}
+	sy := synthetic{nx: 52, ny: 50, every: 200, driftPer: 0.01, sigma: 1, spikes: spikes, step: 0.4}
+	s, _ := sy.build(21)
+	r := mustRun(t, s, Settings{Base: "BASE"}, nil)
+	if r.Fit == nil || r.Fit.Method != interp.Local {
+		t.Fatalf("fit %+v, want the local method", r.Fit)
+	}
+	caught, flagged := 0, 0
+	for i, rd := range s.Readings {
+		isSpike := false
+		for g := range spikes {
+			isSpike = isSpike || rd.ID == "P"+strconv.Itoa(g)
+		}
+		switch {
+		case isSpike && r.Status[i] == Suspect:
+			caught++
+		case isSpike:
+			t.Errorf("planted spike %s not caught: residual %g, z %g", ReadingName(s, i), r.Residual[i], r.Z[i])
+		case r.Status[i] != OK:
+			flagged++
+		}
+	}
+	if share := float64(flagged) / float64(len(s.Readings)); share > 0.01 {
+		t.Errorf("%d clean readings flagged (%.2f%%), want ≤ 1%%", flagged, 100*share)
 	}
 }

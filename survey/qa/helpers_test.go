@@ -47,8 +47,8 @@ func (b *builder) add(id string, x, y, v float64) *survey.Reading {
 	return &b.s.Readings[n]
 }
 
-// synthetic is a survey of the truth field on an nx × ny grid at 1 m
-// spacing, walked line by line, with a base station BASE at (−3, −3) read
+// synthetic is a survey of the truth field on an nx × ny grid at step
+// metres, walked line by line, with a base station BASE at (−3, −3) read
 // at the start, every `every` readings and at the end. Drift adds
 // driftPer mV per reading in order; noise is Gaussian with sigma mV;
 // spikes lists reading numbers (in grid order) that get spike mV added.
@@ -59,6 +59,7 @@ type synthetic struct {
 	sigma    float64
 	spikes   map[int]float64
 	withTime bool
+	step     float64 // grid spacing in metres (0: 1 m)
 }
 
 // build returns the survey and the true (drift-free, noise-free,
@@ -78,10 +79,14 @@ func (sy synthetic) build(seed uint64) (*survey.Survey, []float64) {
 		truth = append(truth, v)
 	}
 	read("BASE", -3, -3, 0)
+	step := sy.step
+	if step == 0 {
+		step = 1
+	}
 	g := 0
 	for j := range sy.ny {
 		for i := range sy.nx {
-			read("P"+strconv.Itoa(g), float64(i), float64(j), sy.spikes[g])
+			read("P"+strconv.Itoa(g), step*float64(i), step*float64(j), sy.spikes[g])
 			g++
 			if sy.every > 0 && g%sy.every == 0 {
 				read("BASE", -3, -3, 0)

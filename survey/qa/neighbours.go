@@ -2,6 +2,9 @@ package qa
 
 import (
 	"math"
+	"runtime"
+	"sort"
+	"sync"
 
 	"gonum.org/v1/gonum/spatial/kdtree"
 )
@@ -15,7 +18,6 @@ import (
 const (
 	kNeighbours    = 6
 	neighbourReach = 2.5
-	spacingSample  = 1000 // spots sampled to estimate the typical spacing
 )
 
 // place is a spot's position in a k-d tree, remembering its index.
@@ -73,7 +75,10 @@ type neighbourIndex struct {
 	tree  *kdtree.Tree
 	spots []spot
 	memo  map[int][]int
-	reach float64 // squared distance limit
+	dist  map[int][]float64
+	reach float64   // squared distance limit
+	h2    float64   // squared typical spacing
+	nn2   []float64 // squared distance of each spot to its nearest
 }
 
 func newNeighbourIndex(spots []spot) *neighbourIndex {
@@ -81,49 +86,83 @@ func newNeighbourIndex(spots []spot) *neighbourIndex {
 	for k, s := range spots {
 		ps[k] = place{s.x, s.y, k}
 	}
-	n := &neighbourIndex{tree: kdtree.New(ps, false), spots: spots, memo: map[int][]int{}}
-	h := n.typicalSpacing()
-	n.reach = neighbourReach * neighbourReach * h * h
+	n := &neighbourIndex{tree: kdtree.New(ps, false), spots: spots, memo: map[int][]int{}, dist: map[int][]float64{}}
+	n.nn2 = n.nearestDistances()
+	if len(n.nn2) > 0 {
+		n.h2 = median(append([]float64(nil), n.nn2...))
+	}
+	n.reach = neighbourReach * neighbourReach * n.h2
 	return n
 }
 
-// typicalSpacing is the median distance from a spot to its nearest other
-// spot, over an evenly strided sample of the spots.
-func (n *neighbourIndex) typicalSpacing() float64 {
-	stride := max(1, len(n.spots)/spacingSample)
-	var d []float64
-	for k := 0; k < len(n.spots); k += stride {
-		keep := kdtree.NewNKeeper(2)
-		n.tree.NearestSet(keep, place{n.spots[k].x, n.spots[k].y, k})
-		for _, c := range keep.Heap {
-			if c.Comparable != nil && c.Comparable.(place).k != k {
-				d = append(d, math.Sqrt(c.Dist))
+// nearestDistances returns each spot's squared distance to its nearest
+// other spot (+Inf for a lone spot), using all cores.
+func (n *neighbourIndex) nearestDistances() []float64 {
+	d := make([]float64, len(n.spots))
+	workers := min(runtime.GOMAXPROCS(0), max(1, len(d)/1000))
+	var wg sync.WaitGroup
+	for w := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for k := w; k < len(d); k += workers {
+				keep := kdtree.NewNKeeper(2)
+				n.tree.NearestSet(keep, place{n.spots[k].x, n.spots[k].y, k})
+				d[k] = math.Inf(1)
+				for _, c := range keep.Heap {
+					if c.Comparable != nil && c.Comparable.(place).k != k {
+						d[k] = math.Min(d[k], c.Dist)
+					}
+				}
 			}
-		}
+		}()
 	}
-	if len(d) == 0 {
-		return math.Inf(1)
-	}
-	return median(d)
+	wg.Wait()
+	return d
 }
 
-// of returns the indexes of the kNeighbours spots nearest to spot k, not
-// counting k itself.
-func (n *neighbourIndex) of(k int) []int {
+// nearest returns the indexes of the kNeighbours spots nearest to spot k,
+// not counting k itself, nearest first, and their squared distances.
+func (n *neighbourIndex) nearest(k int) ([]int, []float64) {
 	if nb, ok := n.memo[k]; ok {
-		return nb
+		return nb, n.dist[k]
 	}
 	keep := kdtree.NewNKeeper(kNeighbours + 1)
 	n.tree.NearestSet(keep, place{n.spots[k].x, n.spots[k].y, k})
+	sort.Slice(keep.Heap, func(a, b int) bool { return keep.Heap[a].Dist < keep.Heap[b].Dist })
 	var nb []int
+	var d2 []float64
 	for _, c := range keep.Heap {
 		if c.Comparable == nil {
 			continue
 		}
-		if j := c.Comparable.(place).k; j != k && c.Dist <= n.reach {
-			nb = append(nb, j)
+		if j := c.Comparable.(place).k; j != k {
+			nb, d2 = append(nb, j), append(d2, c.Dist)
 		}
 	}
-	n.memo[k] = nb
-	return nb
+	n.memo[k], n.dist[k] = nb, d2
+	return nb, d2
+}
+
+// of returns the nearest spots of spot k that lie within reach.
+func (n *neighbourIndex) of(k int) []int {
+	nb, d2 := n.nearest(k)
+	m := 0
+	for m < len(nb) && d2[m] <= n.reach {
+		m++
+	}
+	return nb[:m]
+}
+
+// gapFactor is (d/h)², at least 1, for spot k whose nearest other spot
+// lies at d, h being the typical spacing (the median of d over the spots):
+// how much larger than usual an interpolation error is to be expected
+// there, the error of a thin-plate spline on smooth data growing about
+// with the square of the distance to the data (Wendland, Scattered Data
+// Approximation (2005), ch. 11; from memory).
+func (n *neighbourIndex) gapFactor(k int) float64 {
+	if n.h2 <= 0 || math.IsInf(n.h2, 0) || math.IsInf(n.nn2[k], 0) {
+		return 1
+	}
+	return max(1, n.nn2[k]/n.h2)
 }

@@ -52,7 +52,12 @@ func (c *checker) convertReferences() error {
 	}
 	per := c.s.Unit.PerVolt()
 	byFrom := map[electrode.Reference]int{}
+	reasons := map[electrode.Reference]string{}
+	unstated := 0
 	for i, from := range refs {
+		if from == electrode.None {
+			unstated++
+		}
 		if from == electrode.None || from == to {
 			continue
 		}
@@ -61,7 +66,11 @@ func (c *checker) convertReferences() error {
 			return c.inputError(i, err)
 		}
 		off *= per
-		reason := fmt.Sprintf("reference %v → %v: %+.4g %s", from, to, off, c.unit())
+		reason, ok := reasons[from]
+		if !ok {
+			reason = fmt.Sprintf("reference %v → %v: %+.4g %s", from, to, off, c.unit())
+			reasons[from] = reason
+		}
 		c.setValue(i, c.res.Corrected[i]+off, KindReference, reason)
 		c.note(i, reason)
 		byFrom[from]++
@@ -75,8 +84,8 @@ func (c *checker) convertReferences() error {
 			Source: sourcePair(a, b),
 		})
 	}
-	if c.set.From == electrode.None && len(byFrom) < len(refs) {
-		c.remark("readings naming no reference electrode are taken to be on the %v scale already (no --from-ref)", to)
+	if unstated > 0 {
+		c.remark("%d readings name no reference electrode and no --from-ref is set: taken to be on the %v scale already", unstated, to)
 	}
 	return nil
 }

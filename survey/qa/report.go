@@ -159,18 +159,22 @@ func groupWord(g RepeatGroup) string {
 
 func (p *printer) spikes() {
 	set := p.r.Settings
-	p.f("\nspikes: robust z beyond %.3g and residual beyond %s\n", set.SpikeK, p.tol(set.RepeatTol))
 	if set.SpikeK < 0 {
-		p.f("  spike check off\n")
+		p.f("\nspikes: spike check off\n")
 		return
 	}
+	p.f("\nspikes: robust z beyond %.3g and residual beyond %s\n", set.SpikeK, p.tol(set.RepeatTol))
 	if fi := p.r.Fit; fi != nil {
 		method := "global"
 		if fi.Patches > 0 {
 			method = fmt.Sprintf("local, %d patches", fi.Patches)
 		}
-		p.f("  fit: %v (%s), leave-one-out RMS %.4g %s; scale 1.4826 MAD = %.4g %s\n",
-			fi.Kernel, method, fi.LOORMS, p.u, p.r.SpikeScale, p.u)
+		rms := "not computed"
+		if !math.IsNaN(fi.LOORMS) {
+			rms = fmt.Sprintf("%.4g %s", fi.LOORMS, p.u)
+		}
+		p.f("  fit: %v (%s), leave-one-out RMS %s; scale 1.4826 MAD = %.4g %s\n",
+			fi.Kernel, method, rms, p.r.SpikeScale, p.u)
 	}
 	p.steep()
 	if len(p.r.Suspects) == 0 {
@@ -183,7 +187,7 @@ func (p *printer) spikes() {
 			p.f("  ... and %d more (isofield clean lists every reading)\n", len(p.r.Suspects)-k)
 			break
 		}
-		p.f("  %-24s %12.6g %+12.4g %+8.1f\n", p.spot(sp.Reading), p.r.Corrected[sp.Reading], sp.Residual, sp.Z)
+		p.f("  %-24s %12.6g %+12.4g %8s\n", p.spot(sp.Reading), p.r.Corrected[sp.Reading], sp.Residual, zText(sp.Z))
 	}
 }
 
@@ -205,6 +209,18 @@ func (p *printer) steep() {
 		p.f(" %s", p.spot(i))
 	}
 	p.f("\n")
+}
+
+// zText prints a robust z, capping it at ±999 (a scale of zero, from
+// readings the fit follows exactly, gives an infinite z).
+func zText(z float64) string {
+	switch {
+	case z > 999:
+		return ">+999"
+	case z < -999:
+		return "<-999"
+	}
+	return fmt.Sprintf("%+.1f", z)
 }
 
 func (p *printer) edits() {

@@ -66,7 +66,7 @@ func (c *checker) spikes(ctx context.Context) error {
 		}
 		out = next
 	}
-	c.markSpikes(spots, out, resid)
+	c.markSpikes(spots, out, resid, nb)
 	c.markSteep(spots, steep, resid)
 	return nil
 }
@@ -165,8 +165,8 @@ func (c *checker) flag(spots []spot, out []bool, resid []float64, nb *neighbourI
 	c.res.SpikeScale = scale
 	dev := make([]float64, len(spots)) // signed deviation of candidates, else 0
 	for k := range spots {
-		d := resid[k] - med
-		if math.Abs(d) > c.set.SpikeK*scale && math.Abs(d) > c.set.RepeatTol {
+		d := (resid[k] - med) / nb.gapFactor(k)
+		if a := math.Abs(d); a > c.set.SpikeK*scale && a > c.set.RepeatTol {
 			dev[k] = d
 		}
 	}
@@ -188,16 +188,11 @@ func (c *checker) flag(spots []spot, out []bool, resid []float64, nb *neighbourI
 
 // markSpikes records residuals and z for every spot's readings and marks
 // the spikes suspect, largest |z| first in Result.Suspects.
-func (c *checker) markSpikes(spots []spot, out []bool, resid []float64) {
+func (c *checker) markSpikes(spots []spot, out []bool, resid []float64, nb *neighbourIndex) {
 	med, scale := robust(resid, out)
 	c.res.SpikeScale = scale
 	for k, p := range spots {
-		z := math.Inf(1)
-		if scale > 0 {
-			z = (resid[k] - med) / scale
-		} else if resid[k] == med {
-			z = 0
-		}
+		z := robustZ(resid[k]-med, scale*nb.gapFactor(k))
 		members := c.spotReadings(p.reading)
 		reason := fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, robust z %+.1f", resid[k], c.unit(), z)
 		for _, i := range members {
@@ -215,6 +210,17 @@ func (c *checker) markSpikes(spots []spot, out []bool, resid []float64) {
 	sort.SliceStable(c.res.Suspects, func(a, b int) bool {
 		return math.Abs(c.res.Suspects[a].Z) > math.Abs(c.res.Suspects[b].Z)
 	})
+}
+
+// robustZ is d/scale, ±Inf for a zero scale (0 when d is 0 too).
+func robustZ(d, scale float64) float64 {
+	switch {
+	case scale > 0:
+		return d / scale
+	case d == 0:
+		return 0
+	}
+	return math.Copysign(math.Inf(1), d)
 }
 
 // spotReadings returns the readings a spot stands for: the live members of

@@ -40,13 +40,13 @@ func floorNice(v float64) float64 {
 }
 
 // maxBands bounds the number of bands a user interval can produce.
-const maxBands = 60
+const maxBands = 400
 
 // NiceBands returns bands of width interval covering [lo, hi], with edges
 // on multiples of the interval (so zero is an edge when lo < 0 < hi). An
 // interval ≤ 0 picks the widest nice one (1, 2 or 5 × 10ⁿ) giving at least
 // eight bands; an interval that
-// would give more than 60 bands is widened. The scale is Diverging when the
+// would give more than 400 bands is widened. The scale is Diverging when the
 // values change sign.
 func NiceBands(lo, hi, interval float64) Bands {
 	if math.IsNaN(lo) || math.IsNaN(hi) || math.IsInf(lo, 0) || math.IsInf(hi, 0) {

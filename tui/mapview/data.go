@@ -103,18 +103,3 @@ func FieldMax(g *interp.Grid) float64 {
 	}
 	return m
 }
-
-// node returns the index of the grid node nearest to (x, y), or -1 when
-// the point is outside the grid by more than half a spacing.
-func (d *Data) node(x, y float64) int {
-	g := d.Grid
-	if g == nil || g.DX <= 0 || g.DY <= 0 {
-		return -1
-	}
-	i := int(math.Floor((x-g.X0)/g.DX + 0.5))
-	j := int(math.Floor((y-g.Y0)/g.DY + 0.5))
-	if i < 0 || j < 0 || i >= g.NX || j >= g.NY {
-		return -1
-	}
-	return g.Index(i, j)
-}

@@ -22,7 +22,6 @@ type Renderer struct {
 	colors []termenv.Color // per band of the base layer
 	inks   []termenv.Color
 	prefix map[styleKey]string
-	buf    []int16
 	flag   []bool
 	node   []int32
 }

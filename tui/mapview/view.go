@@ -76,11 +76,6 @@ func (v View) Cell(x, y float64) (col, row int, ok bool) {
 	return col, row, col >= 0 && col < v.Width && row >= 0 && row < v.Height
 }
 
-// subRow returns the half-block pixel row (0 .. 2·Height-1) holding y.
-func (v View) subRow(y float64) int {
-	return int(math.Floor((v.CY-y)/v.MPC + float64(v.Height)))
-}
-
 // Zoom returns v with its scale divided by f about its centre.
 func (v View) Zoom(f float64) View {
 	if f > 0 {
