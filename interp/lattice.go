@@ -12,6 +12,13 @@ const (
 	patchGrowMax = 16
 )
 
+// fitMargin is the ratio of a patch's fit radius to its weight radius:
+// each local fit uses the readings out to fitMargin times the distance at
+// which its weight vanishes, so that wherever its weight is felt the
+// point lies well inside the readings it was fitted to, and the local
+// fit's larger error near its own edge never enters the blend.
+const fitMargin = 1.5
+
 // lattice is the regular layout of patch centres over the readings'
 // bounding box (scaled coordinates): na × nb cells of hx × hy, one patch
 // centre at the middle of each, base radius rad0 = max(hx, hy), which is
@@ -29,7 +36,7 @@ func newLattice(ds *dataset) lattice {
 	w, h := xmax-xmin, ymax-ymin
 	n := float64(len(ds.x))
 	area := max(w*h, ds.h*ds.h*n)
-	H := math.Sqrt(localTarget * area / (math.Pi * n))
+	H := math.Sqrt(localTarget*area/(math.Pi*n)) / fitMargin
 	na := max(1, int(math.Ceil(w/H)))
 	nb := max(1, int(math.Ceil(h/H)))
 	hx, hy := max(w/float64(na), H*1e-3), max(h/float64(nb), H*1e-3)
@@ -44,25 +51,29 @@ func (l lattice) centre(a, b int) (x, y float64) {
 // and lays the patches out in lf (coordinates, members, room for the
 // coefficients).
 func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit) {
+	est := l.na * l.nb * (localTarget + localTarget/4)
+	lf.px, lf.py = make([]float64, 0, est), make([]float64, 0, est)
+	lf.coef, lf.member = make([]float64, 0, est), make([]int32, 0, est)
+	lf.patches = make([]patch, 0, l.na*l.nb)
 	var buf []int32
 	for b := 0; b < l.nb; b++ {
 		for a := 0; a < l.na; a++ {
 			cx, cy := l.centre(a, b)
-			buf = ix.within(buf[:0], cx, cy, l.rad0)
-			if len(buf) == 0 {
+			if !ix.anyWithin(cx, cy, l.rad0) {
 				continue // an empty base disk: no patch (holes, corners)
 			}
-			idx, rad := growPatch(ix, ds, cx, cy, l.rad0, buf)
+			buf = ix.within(buf[:0], cx, cy, fitMargin*l.rad0)
+			idx, frad := growPatch(ix, ds, cx, cy, fitMargin*l.rad0, buf)
 			if idx == nil {
 				continue
 			}
-			lf.addPatch(ds, cx, cy, rad, idx)
+			lf.addPatch(ds, cx, cy, frad/fitMargin, frad, idx)
 		}
 	}
 }
 
-// growPatch returns the readings of the patch at (cx, cy) and its radius:
-// the base radius if that holds localMin readings not on one line, else a
+// growPatch returns the readings of the patch at (cx, cy) and its fit
+// radius: rad0 if that holds localMin readings not on one line, else a
 // radius grown by patchGrow steps; nil if even patchGrowMax × rad0 fails.
 // A patch over localMax readings keeps its localMax nearest.
 func growPatch(ix *pointIndex, ds *dataset, cx, cy, rad0 float64, first []int32) ([]int32, float64) {
@@ -103,15 +114,15 @@ func pointsCollinear(ds *dataset, idx []int32) bool {
 }
 
 // addPatch appends a patch with its readings in patch coordinates.
-func (lf *localFit) addPatch(ds *dataset, cx, cy, rad float64, idx []int32) {
+func (lf *localFit) addPatch(ds *dataset, cx, cy, rad, frad float64, idx []int32) {
 	lo := int32(len(lf.px))
 	for _, k := range idx {
-		lf.px = append(lf.px, (ds.x[k]-cx)/rad)
-		lf.py = append(lf.py, (ds.y[k]-cy)/rad)
+		lf.px = append(lf.px, (ds.x[k]-cx)/frad)
+		lf.py = append(lf.py, (ds.y[k]-cy)/frad)
 		lf.member = append(lf.member, k)
 		lf.coef = append(lf.coef, 0)
 	}
-	lf.patches = append(lf.patches, patch{cx: cx, cy: cy, rad: rad, lo: lo, hi: int32(len(lf.px))})
+	lf.patches = append(lf.patches, patch{cx: cx, cy: cy, rad: rad, frad: frad, lo: lo, hi: int32(len(lf.px))})
 }
 
 // cellMap lists, for each lattice cell, the patches whose disks meet it

@@ -12,21 +12,26 @@ import (
 
 // Patch sizes of the partition of unity, in merged readings. Our choice,
 // within the range of Cavoretto, De Rossi & Perracchione (2016–2017), who
-// use patches of a few dozen points: about localTarget readings in a
-// patch of the base radius; patches with fewer than localMin grow until
-// they have localMin (and are not collinear); patches with more than
-// localMax shrink to their localMax nearest readings.
+// use patches of a few dozen points: about localTarget readings within
+// the fit radius (fitMargin × the base weight radius) at the survey's mean
+// density; patches with fewer than localMin grow until they have
+// localMin (and are not collinear); patches with more than localMax
+// shrink to their localMax nearest readings. localTarget = 40 with
+// fitMargin = 1.5 halved the thin-plate error of 32 readings without a
+// margin on the half-space test (interp/BENCHMARKS.md) for about twice the
+// fitting work.
 const (
-	localTarget = 32
+	localTarget = 40
 	localMin    = 12
 	localMax    = 160
 )
 
-// patch is one local fit: centre and radius in the model's scaled
-// coordinates, its readings in patch coordinates (u − centre)/radius at
+// patch is one local fit: centre and radii in the model's scaled
+// coordinates, its readings in patch coordinates (u − centre)/frad at
 // flat[lo:hi], and the polynomial part.
 type patch struct {
-	cx, cy, rad float64
+	cx, cy, rad float64 // centre and weight radius ρ
+	frad        float64 // fit radius fitMargin·ρ: readings and coordinates
 	lo, hi      int32
 	d           [3]float64
 	b           basis // shape rescaled to patch coordinates
@@ -43,7 +48,7 @@ type patch struct {
 // partition of unity interpolants through a block-based searching
 // technique", Comput. Math. Appl. 71 (2016)). Patch centres lie on a
 // regular lattice; each s_j is a radial basis fit to the readings within
-// ρ_j of c_j. The blend is as smooth as its weights and local fits: C¹
+// fitMargin·ρ_j of c_j (see fitMargin). The blend is as smooth as its weights and local fits: C¹
 // for the thin-plate spline, whose second derivatives have a log
 // singularity at the readings.
 type localFit struct {
@@ -179,13 +184,14 @@ func (lf *localFit) fitPatches(ctx context.Context, ds *dataset, plan localPlan,
 // lf.px, lf.py (patch coordinates) and their values are ds.v[member].
 func (lf *localFit) fitPatch(j int, ds *dataset, plan localPlan, sys *smallSystem) (float64, error) {
 	p := &lf.patches[j]
-	p.b = newBasis(plan.b.k, plan.b.eps*p.rad)
+	p.b = newBasis(plan.b.k, plan.b.eps*p.frad)
 	x, y := lf.px[p.lo:p.hi], lf.py[p.lo:p.hi]
-	f := make([]float64, len(x))
+	sys.f = grow(sys.f, len(x))
+	f := sys.f
 	for i, k := range lf.member[p.lo:p.hi] {
 		f[i] = ds.v[k]
 	}
-	sys.build(x, y, f, p.b, patchLambda(plan, p.rad))
+	sys.build(x, y, f, p.b, patchLambda(plan, p.frad))
 	cond := sys.factor()
 	if cond > maxCondition || math.IsNaN(cond) {
 		return cond, fmt.Errorf("local fit, patch at (%.6g, %.6g) with %d readings: condition %.2g: %w",

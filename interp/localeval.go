@@ -42,8 +42,8 @@ func (lf *localFit) valueGrad(x, y float64) (val, dx, dy float64) {
 		t3 := t * t * t
 		w := t3 * t * (4*q + 1)
 		dw := -20 * t3 / rad2 // ∇w = dw · (du, dv)
-		s, su, sv := lf.patchValueGrad(p, du/p.rad, dv/p.rad)
-		su, sv = su/p.rad, sv/p.rad
+		s, su, sv := lf.patchValueGrad(p, du/p.frad, dv/p.frad)
+		su, sv = su/p.frad, sv/p.frad
 		W += w
 		Wu, Wv = Wu+dw*du, Wv+dw*dv
 		S += w * s
@@ -52,8 +52,8 @@ func (lf *localFit) valueGrad(x, y float64) (val, dx, dy float64) {
 	}
 	if W == 0 {
 		p := &lf.patches[near]
-		s, su, sv := lf.patchValueGrad(p, (u-p.cx)/p.rad, (v-p.cy)/p.rad)
-		return s, su / (p.rad * lf.s), sv / (p.rad * lf.s)
+		s, su, sv := lf.patchValueGrad(p, (u-p.cx)/p.frad, (v-p.cy)/p.frad)
+		return s, su / (p.frad * lf.s), sv / (p.frad * lf.s)
 	}
 	val = S / W
 	return val, (Su - val*Wu) / (W * lf.s), (Sv - val*Wv) / (W * lf.s)

@@ -33,7 +33,7 @@ func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) 
 			for i, k := range lf.member[p.lo:p.hi] {
 				f[i] = ds.v[k]
 			}
-			sys.build(lf.px[p.lo:p.hi], lf.py[p.lo:p.hi], f, p.b, patchLambda(plan, p.rad))
+			sys.build(lf.px[p.lo:p.hi], lf.py[p.lo:p.hi], f, p.b, patchLambda(plan, p.frad))
 			if c := sys.factor(); c > maxCondition || math.IsNaN(c) {
 				failed.Store(true)
 				return
@@ -53,7 +53,7 @@ func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) 
 	for j := range lf.patches {
 		p := &lf.patches[j]
 		for i := p.lo; i < p.hi; i++ {
-			q := math.Hypot(lf.px[i], lf.py[i])
+			q := math.Hypot(lf.px[i], lf.py[i]) * p.frad / p.rad
 			if q >= 1 {
 				continue
 			}

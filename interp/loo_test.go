@@ -78,14 +78,17 @@ func TestLeaveOneOutLocal(t *testing.T) {
 			if held < 0 {
 				continue
 			}
-			sys.build(px, py, pv, p.b, patchLambda(plan, p.rad))
+			sys.build(px, py, pv, p.b, patchLambda(plan, p.frad))
 			sys.factor()
 			sys.solve(sys.rhs)
 			refit := patch{d: [3]float64{sys.rhs[len(px)], sys.rhs[len(px)+1], sys.rhs[len(px)+2]}, b: p.b}
 			tmp := localFit{px: px, py: py, coef: sys.rhs[:len(px)]}
 			refit.hi = int32(len(px))
 			s, _, _ := tmp.patchValueGrad(&refit, lf.px[held], lf.py[held])
-			q := math.Hypot(lf.px[held], lf.py[held])
+			q := math.Hypot(lf.px[held], lf.py[held]) * p.frad / p.rad
+			if q >= 1 {
+				continue
+			}
 			w := math.Pow(1-q, 4) * (4*q + 1)
 			num += w * (vs[k] - s)
 			den += w

@@ -115,6 +115,7 @@ func fitGlobalModel(ctx context.Context, ds *dataset, opt Options, progress func
 	}
 	lambda := opt.Smoothing
 	m := &Model{info: FitInfo{Method: Global, LOORMS: math.NaN()}}
+	progress(0, 1)
 	if opt.AutoSmoothing || (opt.AutoShape && opt.Kernel.HasShape()) {
 		ch, err := chooseGlobal(ctx, ds, opt, shape, progress)
 		if err != nil {

@@ -1,6 +1,12 @@
 package interp
 
-import "math"
+import (
+	"math"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+)
 
 // smallSystem is a workspace for the dense saddle-point systems of the
 // partition-of-unity patches (a few dozen unknowns): build, factorise by
@@ -12,6 +18,7 @@ type smallSystem struct {
 	a   []float64 // n×n row-major, LU factors after factor
 	piv []int
 	rhs []float64
+	f   []float64 // scratch for the caller's right-hand side
 }
 
 // build fills the saddle matrix [A+λI P; Pᵀ 0] for points (x, y) and
@@ -49,75 +56,32 @@ func (s *smallSystem) build(x, y, f []float64, b basis, lambda float64) {
 	}
 }
 
-// factor computes the LU factors in place. It returns a crude condition
-// estimate, the ratio of the largest to the smallest pivot magnitude
-// times the matrix's largest entry over the largest pivot, or +Inf when a
-// pivot vanishes.
+// factor computes the LU factors in place with LAPACK's dgetrf as gonum
+// implements it (its row updates run on gonum's assembly kernels). It
+// returns a crude condition estimate, the largest entry of the matrix
+// over the smallest pivot magnitude, or +Inf when a pivot vanishes.
 func (s *smallSystem) factor() float64 {
-	n, a := s.n, s.a
 	var amax float64
-	for _, v := range a {
+	for _, v := range s.a {
 		amax = max(amax, math.Abs(v))
 	}
-	pmin, pmax := math.Inf(1), 0.0
-	for k := 0; k < n; k++ {
-		p := k
-		for i := k + 1; i < n; i++ {
-			if math.Abs(a[i*n+k]) > math.Abs(a[p*n+k]) {
-				p = i
-			}
-		}
-		s.piv[k] = p
-		if p != k {
-			for j := 0; j < n; j++ {
-				a[k*n+j], a[p*n+j] = a[p*n+j], a[k*n+j]
-			}
-		}
-		d := a[k*n+k]
-		if d == 0 {
-			return math.Inf(1)
-		}
-		pmin, pmax = min(pmin, math.Abs(d)), max(pmax, math.Abs(d))
-		inv := 1 / d
-		rowK := a[k*n+k+1 : k*n+n]
-		for i := k + 1; i < n; i++ {
-			l := a[i*n+k] * inv
-			a[i*n+k] = l
-			if l == 0 {
-				continue
-			}
-			rowI := a[i*n+k+1 : i*n+n]
-			for j, v := range rowK {
-				rowI[j] -= l * v
-			}
-		}
+	if !lapack64.Getrf(s.general(), s.piv) {
+		return math.Inf(1)
 	}
-	return amax / pmin * max(1, pmax/amax)
+	pmin := math.Inf(1)
+	for k := 0; k < s.n; k++ {
+		pmin = min(pmin, math.Abs(s.a[k*s.n+k]))
+	}
+	return amax / pmin
+}
+
+func (s *smallSystem) general() blas64.General {
+	return blas64.General{Rows: s.n, Cols: s.n, Stride: s.n, Data: s.a}
 }
 
 // solve overwrites b with the solution of the factorised system.
 func (s *smallSystem) solve(b []float64) {
-	n, a := s.n, s.a
-	for k := 0; k < n; k++ {
-		if p := s.piv[k]; p != k {
-			b[k], b[p] = b[p], b[k]
-		}
-	}
-	for i := 1; i < n; i++ {
-		row := a[i*n : i*n+i]
-		v := b[i]
-		for j, l := range row {
-			v -= l * b[j]
-		}
-		b[i] = v
-	}
-	for i := n - 1; i >= 0; i-- {
-		v := b[i]
-		for j := i + 1; j < n; j++ {
-			v -= a[i*n+j] * b[j]
-		}
-		b[i] = v / a[i*n+i]
-	}
+	lapack64.Getrs(blas.NoTrans, s.general(), blas64.General{Rows: s.n, Cols: 1, Stride: 1, Data: b[:s.n]}, s.piv)
 }
 
 // inverseDiag writes into dst the first len(dst) diagonal entries of the

@@ -186,28 +186,50 @@ func (m Model) messageLine() string {
 	return ""
 }
 
-// helpOverlay is the full key help followed by the cautions of the preset.
+// helpOverlay is the full key help followed, when they fit, by the
+// cautions of the preset; otherwise the cautions are a page of their own.
 func (m Model) helpOverlay() string {
+	if m.cautions {
+		return m.styles.Overlay.Render(strings.Join(m.cautionLines(min(m.width-6, 76), m.height-chromeRows-4), "\n"))
+	}
+	keys := m.keysHelp()
+	body := m.styles.PanelTitle.Render("Keys") + "\n" + keys
+	if m.cautionsFit() {
+		body += "\n\n" + strings.Join(m.cautionLines(max(lipgloss.Width(keys), 40), 1000), "\n")
+	} else {
+		body += "\n\n" + m.styles.Warn.Render("? again: cautions")
+	}
+	return m.styles.Overlay.Render(body)
+}
+
+func (m Model) keysHelp() string {
 	h := m.help
 	h.ShowAll = true
 	h.Width = m.width - 6
-	keys := packHelp(h, m.keys.FullHelp())
-	body := m.styles.PanelTitle.Render("Keys") + "\n" + keys
+	return packHelp(h, m.keys.FullHelp())
+}
+
+// cautionLines returns the cautions wrapped to w cells, at most n lines.
+func (m Model) cautionLines(w, n int) []string {
 	cs := criteria.Cautions(m.cfg.Criteria.Name())
-	if m.scene != nil {
+	if m.scene != nil && len(m.scene.cautions) > 0 {
 		cs = m.scene.cautions
 	}
-	if room := m.height - chromeRows - lipgloss.Height(body) - 6; room > 2 {
-		lines := []string{"", m.styles.PanelTitle.Render("Cautions")}
-		for _, c := range cs {
-			lines = append(lines, wrap("• "+c, max(lipgloss.Width(body), 40))...)
-		}
-		if len(lines) > room {
-			lines = append(lines[:room-1], m.styles.Faint.Render("… (a taller terminal shows all cautions)"))
-		}
-		body += "\n" + strings.Join(lines, "\n")
+	lines := []string{m.styles.PanelTitle.Render("Cautions")}
+	for _, c := range cs {
+		lines = append(lines, wrap("• "+c, w)...)
 	}
-	return m.styles.Overlay.Render(body)
+	if len(lines) > n && n > 1 {
+		lines = append(lines[:n-1], m.styles.Faint.Render("… (a taller terminal shows the rest)"))
+	}
+	return lines
+}
+
+// cautionsFit reports whether the cautions fit under the keys.
+func (m Model) cautionsFit() bool {
+	keys := m.keysHelp()
+	need := lipgloss.Height(keys) + 1 + 2 + len(m.cautionLines(max(lipgloss.Width(keys), 40), 1000)) + 2
+	return need <= m.height-chromeRows
 }
 
 // packHelp renders the help groups side by side in as few blocks as fit

@@ -62,6 +62,7 @@ type Model struct {
 
 	focus    focus
 	showHelp bool
+	cautions bool // the help shows the cautions page
 	marks    [2]*[2]float64
 	nextMark int
 
@@ -102,7 +103,7 @@ func (m Model) Init() tea.Cmd { return m.initCmd }
 // separate from Init so that the run's cancel function stays in the model.
 func (m Model) Start() (Model, tea.Cmd) {
 	cmds := []tea.Cmd{}
-	m, c := m.regrid("loading")
+	m, c := m.run("first look", m.cfg.Spacing == 0)
 	cmds = append(cmds, c)
 	if m.opt.Watch && len(m.cfg.Files) > 0 {
 		m.watch = stampOf(m.cfg.Files)
@@ -113,12 +114,16 @@ func (m Model) Start() (Model, tea.Cmd) {
 }
 
 // regrid cancels any run in progress and starts a new one.
-func (m Model) regrid(why string) (Model, tea.Cmd) {
+func (m Model) regrid(why string) (Model, tea.Cmd) { return m.run(why, false) }
+
+// run cancels any run in progress and starts a new one, a coarse preview
+// when asked.
+func (m Model) run(why string, preview bool) (Model, tea.Cmd) {
 	if m.cancel != nil {
 		m.cancel()
 	}
 	m.gen++
-	cmd, cancel := runPipeline(m.cfg, m.gen)
+	cmd, cancel := runPipeline(m.cfg, m.gen, preview)
 	m.cancel, m.running, m.stage, m.frac = cancel, true, why, 0
 	return m, cmd
 }
@@ -190,6 +195,9 @@ func (m Model) onResult(msg resultMsg) (tea.Model, tea.Cmd) {
 		return m, nil // a replaced run: drop it
 	}
 	m.running, m.cancel = false, nil
+	if msg.preview && msg.err != nil {
+		return m.regrid("loading") // the full run reports the error
+	}
 	if msg.err != nil {
 		if m.scene == nil {
 			m.state, m.err = stateError, msg.err
@@ -204,6 +212,9 @@ func (m Model) onResult(msg resultMsg) (tea.Model, tea.Cmd) {
 	m.zones = m.zones.SetZones(m.scene.zones, m.scene.unit)
 	m.table = m.table.SetResult(msg.res)
 	m.settings = m.settings.SetConfig(m.cfg)
+	if msg.preview {
+		return m.regrid("full grid")
+	}
 	return m, nil
 }
 
@@ -251,10 +262,19 @@ func (m Model) onKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 	case typing:
 		return m.routeKey(msg)
 	case key.Matches(msg, m.keys.Help):
-		m.showHelp = !m.showHelp
+		// ? opens the keys; when the cautions did not fit beside them, a
+		// second ? shows them on their own page; then ? closes.
+		switch {
+		case !m.showHelp:
+			m.showHelp, m.cautions = true, false
+		case !m.cautions && !m.cautionsFit():
+			m.cautions = true
+		default:
+			m.showHelp, m.cautions = false, false
+		}
 		return m, nil
 	case key.Matches(msg, m.keys.Back):
-		m.showHelp, m.focus = false, focusMap
+		m.showHelp, m.cautions, m.focus = false, false, focusMap
 		return m, nil
 	case key.Matches(msg, m.keys.Cancel) && m.running:
 		m.cancel()

@@ -140,7 +140,12 @@ func TestScreenKeys(t *testing.T) {
 				t.Error("help not shown")
 			}
 		}},
-		{"? twice hides help", []string{"?", "?"}, func(t *testing.T, m Model) {
+		{"? twice shows the cautions (they do not fit at 80×24)", []string{"?", "?"}, func(t *testing.T, m Model) {
+			if !m.showHelp || !m.cautions {
+				t.Errorf("help %v cautions %v, want the cautions page", m.showHelp, m.cautions)
+			}
+		}},
+		{"? thrice closes", []string{"?", "?", "?"}, func(t *testing.T, m Model) {
 			if m.showHelp {
 				t.Error("help still shown")
 			}
@@ -258,6 +263,24 @@ func TestMessages(t *testing.T) {
 			t.Errorf("state %d, want error", m.state)
 		}
 		golden(t, "error_80x24_mono.golden", m.View())
+	})
+	t.Run("a preview shows and starts the full run", func(t *testing.T) {
+		m := New(fixtureConfig(), Options{}, DefaultKeyMap(), testStyles(false))
+		m.gen = 1
+		m = update1(t, m, resultMsg{gen: 1, res: fixtureResult(), preview: true})
+		if m.state != stateReady || !m.running || m.gen != 2 {
+			t.Errorf("state %d running %v gen %d, want ready, running generation 2", m.state, m.running, m.gen)
+		}
+		m.cancel()
+	})
+	t.Run("a failed preview falls back to the full run", func(t *testing.T) {
+		m := New(fixtureConfig(), Options{}, DefaultKeyMap(), testStyles(false))
+		m.gen = 1
+		m = update1(t, m, resultMsg{gen: 1, err: errors.New("no"), preview: true})
+		if m.state != stateLoading || !m.running || m.gen != 2 {
+			t.Errorf("state %d running %v gen %d, want loading, running generation 2", m.state, m.running, m.gen)
+		}
+		m.cancel()
 	})
 	t.Run("later run fails keeps the map", func(t *testing.T) {
 		m := readyModel(t, 80, 24, false)

@@ -65,17 +65,12 @@ func (sc *scene) valueAt(x, y float64) (v, ex, ey float64) {
 	return g.V[k], -g.GX[k], -g.GY[k]
 }
 
-// nearestReading returns the reading closest to (x, y) and its distance
-// (a linear scan: a few milliseconds at a million readings, run only when
-// the cursor moves).
+// nearestReading returns the reading closest to (x, y) and its distance.
 func (sc *scene) nearestReading(x, y float64) (int, float64) {
-	best, bd := -1, math.Inf(1)
-	for i, r := range sc.res.Survey.Readings {
-		if d := (r.X-x)*(r.X-x) + (r.Y-y)*(r.Y-y); d < bd {
-			best, bd = i, d
-		}
+	if sc.near == nil {
+		sc.near = newNearIndex(sc.res.Survey.Readings)
 	}
-	return best, math.Sqrt(bd)
+	return sc.near.nearest(x, y)
 }
 
 // bearing returns the compass bearing (degrees clockwise from north) of

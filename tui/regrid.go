@@ -9,16 +9,24 @@ import (
 
 	tea "github.com/charmbracelet/bubbletea"
 
+	"isofield/survey"
 	"isofield/survey/pipeline"
 	"isofield/survey/qa"
 )
 
-// resultMsg is a finished pipeline run of generation gen.
+// resultMsg is a finished pipeline run of generation gen; preview marks
+// the quick coarse first look.
 type resultMsg struct {
-	gen int
-	res *pipeline.Result
-	err error
+	gen     int
+	res     *pipeline.Result
+	err     error
+	preview bool
 }
+
+// previewCoarsening is how much coarser than the automatic spacing the first
+// look at a survey is gridded: 4× the spacing is 1/16 of the nodes, so the
+// map appears in a fraction of a second while the full grid follows.
+const previewCoarsening = 4
 
 // progressMsg reports a run's progress; next waits for the one after.
 type progressMsg struct {
@@ -48,7 +56,11 @@ func stageSpan(stage string) (lo, hi float64) {
 // progressMsg, the outcome as resultMsg; both carry gen so the root can
 // drop messages of a run it has replaced. The command captures values only,
 // never the model.
-func runPipeline(cfg pipeline.Config, gen int) (tea.Cmd, context.CancelFunc) {
+//
+// A preview run (only when the spacing is automatic) loads the survey,
+// grids it previewCoarsening times coarser than the automatic spacing and
+// suggests no infill points.
+func runPipeline(cfg pipeline.Config, gen int, preview bool) (tea.Cmd, context.CancelFunc) {
 	cfg = cloneConfig(cfg)
 	ctx, cancel := context.WithCancel(context.Background())
 	ch := make(chan progressMsg, 1)
@@ -72,6 +84,9 @@ func runPipeline(cfg pipeline.Config, gen int) (tea.Cmd, context.CancelFunc) {
 	}
 	run := func() tea.Msg {
 		defer close(done)
+		if preview {
+			return runPreview(ctx, cfg, gen, report)
+		}
 		res, err := pipeline.Run(ctx, cfg, report)
 		return resultMsg{gen: gen, res: res, err: err}
 	}
@@ -160,4 +175,21 @@ func safe(cmd tea.Cmd) tea.Cmd {
 		}()
 		return cmd()
 	}
+}
+
+// runPreview runs the coarse first look of cfg.
+func runPreview(ctx context.Context, cfg pipeline.Config, gen int, report pipeline.Progress) tea.Msg {
+	s := cfg.Survey
+	if s == nil {
+		var err error
+		if s, err = survey.Load(cfg.Files, cfg.Load); err != nil {
+			return resultMsg{gen: gen, err: err, preview: true}
+		}
+	}
+	xmin, ymin, xmax, ymax := s.Extent()
+	cfg.Survey = s
+	cfg.Spacing = previewCoarsening * pipeline.AutoSpacing(xmax-xmin, ymax-ymin)
+	cfg.Suggest = 0
+	res, err := pipeline.Run(ctx, cfg, report)
+	return resultMsg{gen: gen, res: res, err: err, preview: true}
 }

@@ -25,6 +25,7 @@ type scene struct {
 	cautions  []string
 	notes     []string
 	threshold float64 // field threshold in unit per metre (0: none)
+	near      *nearIndex
 }
 
 // zoneInfo is one flagged zone, ranked by severity (rank 1 first).
@@ -80,6 +81,7 @@ func newScene(res *pipeline.Result, cfg pipeline.Config) *scene {
 		}
 	}
 	sc.data = mapview.NewData(g, pot, field, flagged, pts)
+	sc.near = newNearIndex(res.Survey.Readings)
 	return sc
 }
 

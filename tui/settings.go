@@ -205,7 +205,7 @@ func optional(p *float64) string {
 	if p == nil {
 		return ""
 	}
-	return num(*p)
+	return strconv.FormatFloat(*p, 'g', -1, 64)
 }
 
 func setOptional(s string) (*float64, error) {

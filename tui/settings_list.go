@@ -11,7 +11,7 @@ import (
 
 // allSettings lists every setting the form can show.
 func allSettings() []setting {
-	f := func(v float64) string { return num(v) }
+	f := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 	out := []setting{
 		{label: "preset", choices: criteria.Presets(),
 			get: func(c *pipeline.Config) string { return c.Criteria.Name() },

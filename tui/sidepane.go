@@ -79,7 +79,7 @@ func (p sidePane) readout(sc *scene, pr probe, w int) []string {
 	}
 	if pr.Zone >= 0 && pr.Zone < len(sc.zones) {
 		z := sc.zones[pr.Zone]
-		out = append(out, p.row("zone", fmt.Sprintf("#%d  %s m²  peak %s %s", z.Rank, num(z.Area), num(z.Peak), z.Unit), w))
+		out = append(out, p.row("zone", fmt.Sprintf("#%d of %d, %s m²", z.Rank, len(sc.zones), num(z.Area)), w))
 	}
 	return out
 }
@@ -95,7 +95,11 @@ func (sc *scene) readingLabel(i int, dist float64) string {
 	if q := sc.res.QA; q != nil && i < len(q.Status) {
 		status = q.Status[i]
 	}
-	return fmt.Sprintf("%s %s m %s %s %s", id, num(dist), num(r.V), sc.unit, status)
+	out := fmt.Sprintf("%s %s %s, %.1f m", id, num(r.V), sc.unit, dist)
+	if status != qa.OK {
+		out += " " + status.String()
+	}
+	return out
 }
 
 // legend lists the bands of the base layer, highest first, in at most room

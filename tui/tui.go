@@ -1,8 +1,3 @@
-// Package tui is isofield's terminal user interface, built on Bubble Tea,
-// Lip Gloss and Bubbles: a map of the gridded survey with a cursor readout
-// and legend, the ranked zones, the readings table with exclusions by hand,
-// a profile chart and the settings, all fed by pipeline.Run in the
-// background.
 package tui
 
 import (

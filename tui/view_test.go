@@ -63,6 +63,7 @@ func TestViewGolden(t *testing.T) {
 		{"profile", []string{"h", "h", "h", "h", "h", "h", "h", "h", "m", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "m", "p"}},
 		{"settings", []string{"s", "down"}},
 		{"help", []string{"?"}},
+		{"cautions", []string{"?", "?"}},
 		{"prompt", []string{"t", "x", "w", "e", "t"}},
 	}
 	for _, size := range [][2]int{{80, 24}, {120, 40}} {

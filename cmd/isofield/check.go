@@ -7,6 +7,7 @@ import (
 	"io"
 
 	"isofield/survey"
+	"isofield/survey/criteria"
 	"isofield/survey/qa"
 )
 
@@ -61,6 +62,7 @@ func checkSurvey(fs *flag.FlagSet, sf *surveyFlags) (*survey.Survey, *qa.Result,
 	if err != nil {
 		return nil, nil, nil, err
 	}
+	sf.session = sess != nil
 	s, err := survey.Load(cfg.Files, cfg.Load)
 	if err != nil {
 		return nil, nil, nil, err
@@ -71,6 +73,8 @@ func checkSurvey(fs *flag.FlagSet, sf *surveyFlags) (*survey.Survey, *qa.Result,
 	if _, err := recordEdits(fs, cfg, sess, s); err != nil {
 		return nil, nil, nil, err
 	}
+	// The preset may fix the reference scale, as it does for grid.
+	notes = append(notes, criteria.Link(&cfg.Criteria, &cfg.QA)...)
 	q, err := qa.RunContext(context.Background(), s, cfg.QA, cfg.Edits)
 	if err != nil {
 		return nil, nil, nil, err

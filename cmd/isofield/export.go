@@ -13,8 +13,12 @@ import (
 const exportSummary = `Check, grid and analyse the survey files, then write every export into
 the directory --dir (created if missing), under fixed names:
 
-  grid.csv             the grid CSV (see isofield grid --help), plus band
-                       and, for the grounding preset, step and touch columns
+  readings_clean.csv   every reading with its corrected value and QA status
+                       (as isofield clean writes it)
+  qa_log.txt           every logged correction and change of status
+  grid.csv             the grid CSV (see isofield grid --help), plus band,
+                       step and touch (grounding preset) and, for surveys
+                       read from latitude and longitude, lat_deg and lon_deg
   grid_potential.csv   the potential as a matrix: rows north to south, each
                        row west to east, NaN where masked, no header
   grid_field.csv       the field magnitude |E| as the same matrix
@@ -28,6 +32,8 @@ the directory --dir (created if missing), under fixed names:
   map_potential.svg    potential map; .png the same at --dpi (300: 3150×2250)
   map_field.svg        field map; .png the same at --dpi
   report.html          the survey report (one file, opens offline)
+  export_info.txt      version, settings, inputs and the SHA-256 of every
+                       file above
 
 GeoJSON positions are WGS 84 longitude and latitude when the survey was read
 from latitude and longitude, otherwise the survey's own metres (stated in

@@ -30,12 +30,12 @@ const (
 // command that reads surveys, and the session flags.
 func addQAFlags(fs *flag.FlagSet, s *qa.Settings) {
 	refs := strings.Join(electrode.Names(), ", ")
-	fs.TextVar(&s.From, "from-ref", electrode.None, "reference electrode the readings were taken against, one of: "+refs+" (a reference column overrides it)")
+	fs.TextVar(&s.From, "from-ref", electrode.None, "reference electrode `NAME` the readings were taken against, one of: "+refs+" (a reference column overrides it)")
 	fs.TextVar(&s.To, "to-ref", electrode.None, "convert every reading to this reference electrode `NAME` (default: no conversion)")
 	fs.StringVar(&s.Base, "base", "", "correct drift with the repeated readings of base station `ID`")
 	fs.BoolVar(&s.AutoBase, "auto-base", false, "correct drift with the proposed base station (the spot read most often)")
 	fs.TextVar(&s.Drift, "drift", qa.Linear, "drift curve between base readings: `linear` or cubic (monotone)")
-	fs.Float64Var(&s.RepeatTol, "repeat-tol", 0, fmt.Sprintf("largest spread of agreeing repeats, in the potential unit (default %g mV, ASTM C876 repeatability, from memory; negative: never suspect)", qa.DefaultRepeatTolMV))
+	fs.Float64Var(&s.RepeatTol, "repeat-tol", 0, fmt.Sprintf("largest spread `VALUE` of agreeing repeats, in the potential unit (default %g mV, ASTM C876 repeatability, from memory; negative: never suspect)", qa.DefaultRepeatTolMV))
 	fs.Float64Var(&s.RepeatDist, "repeat-dist", 0, fmt.Sprintf("readings within `METRES` are repeats of one spot (default %g; negative: same id only)", qa.DefaultRepeatDist))
 	fs.BoolVar(&s.IgnoreIDs, "repeat-by-position", false, "group repeats by position only (ids restart in each file)")
 	fs.Float64Var(&s.SpikeK, "spike-k", 0, fmt.Sprintf("mark readings whose leave-one-out robust z exceeds `K` (default %g; negative: no spike check)", qa.DefaultSpikeK))
@@ -44,8 +44,8 @@ func addQAFlags(fs *flag.FlagSet, s *qa.Settings) {
 	fs.Bool(flagNoSession, false, "ignore the session file (settings and hand edits kept beside the first input)")
 	fs.String(flagSession, "", "read the session from `FILE` instead of FIRST_INPUT"+session.Suffix)
 	fs.Var(&editSpecs{}, flagExclude, "exclude the reading at `FILE:LINE` by hand, recorded in the session file (repeatable)")
-	fs.Var(&editSpecs{}, flagInclude, "include again the reading at `FILE:LINE`, recorded in the session file (repeatable)")
-	fs.String(flagReason, "", "reason recorded with --exclude and --include")
+	fs.Var(&editSpecs{}, flagInclude, "include the reading at `FILE:LINE` by hand (ok whatever the checks said), recorded in the session file (repeatable)")
+	fs.String(flagReason, "", "`TEXT` recorded as the reason of --exclude and --include")
 }
 
 // qaFlagFields copies, for each QA flag, its field from src to dst.

@@ -4,7 +4,9 @@ import (
 	"context"
 	"fmt"
 	"io"
+	"math"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"text/tabwriter"
 
@@ -67,8 +69,8 @@ func writeZonesTable(w io.Writer, res *pipeline.Result) error {
 		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 		fmt.Fprintln(tw, "rank\tquantity\tarea_m2\tcentroid_x\tcentroid_y\tpeak\tunit\tpeak_x\tpeak_y\tmean\treadings")
 		for _, z := range a.Zones {
-			fmt.Fprintf(tw, "%d\t%s\t%.2f\t%.2f\t%.2f\t%.4g\t%s\t%.2f\t%.2f\t%.4g\t%s\n",
-				z.Rank, z.Quantity, z.AreaM2, z.CentroidX, z.CentroidY, z.Peak, z.Unit, z.PeakX, z.PeakY, z.Mean,
+			fmt.Fprintf(tw, "%d\t%s\t%.2f\t%.2f\t%.2f\t%s\t%s\t%.2f\t%.2f\t%s\t%s\n",
+				z.Rank, z.Quantity, z.AreaM2, z.CentroidX, z.CentroidY, tableNum(z.Peak), z.Unit, z.PeakX, z.PeakY, tableNum(z.Mean),
 				readingList(res.Survey, z.Readings, 6))
 		}
 		if err := tw.Flush(); err != nil {
@@ -76,6 +78,7 @@ func writeZonesTable(w io.Writer, res *pipeline.Result) error {
 		}
 	}
 	writeClasses(w, a)
+	writeDistribution(w, a)
 	writeTexts(w, "notes", append(append([]string(nil), res.Notes...), a.Notes...))
 	writeSources(w, c)
 	writeTexts(w, "warnings", c.Warnings)
@@ -126,6 +129,19 @@ func writeClasses(w io.Writer, a *analysis.Result) {
 	}
 }
 
+// writeDistribution summarises the cumulative frequency of the readings
+// for the concrete preset (RILEM TC 154-EMC's statistical view).
+func writeDistribution(w io.Writer, a *analysis.Result) {
+	if a.Criterion.Preset != criteria.Concrete || len(a.Cumulative) == 0 {
+		return
+	}
+	fmt.Fprintf(w, "\nreadings (%d), cumulative frequency (RILEM TC 154-EMC):", len(a.Cumulative))
+	for _, p := range []float64{10, 25, 50, 75, 90} {
+		fmt.Fprintf(w, "  %g %% ≤ %s", p, tableNum(analysis.Quantile(a.Cumulative, p)))
+	}
+	fmt.Fprintf(w, " %s\n", a.Unit)
+}
+
 func writeSources(w io.Writer, c *criteria.Criterion) {
 	if len(c.Sources) == 0 {
 		return
@@ -159,4 +175,16 @@ func writeTexts(w io.Writer, title string, ts []string) {
 	for _, t := range ts {
 		fmt.Fprintf(w, "  - %s\n", t)
 	}
+}
+
+// tableNum formats a value for the table: whole units from 1000 up, one decimal
+// from 10, else three significant digits.
+func tableNum(v float64) string {
+	switch a := math.Abs(v); {
+	case a >= 1000:
+		return strconv.FormatFloat(v, 'f', 0, 64)
+	case a >= 10:
+		return strconv.FormatFloat(v, 'f', 1, 64)
+	}
+	return strconv.FormatFloat(v, 'g', 3, 64)
 }

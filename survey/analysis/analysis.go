@@ -23,7 +23,9 @@ type Input struct {
 	// Interval is the contour interval (0: automatic nice interval).
 	Interval float64
 	// Suggest is how many infill points to suggest (0: none).
-	Suggest  int
+	Suggest int
+	// Progress, if not nil, is called with the work done out of a total
+	// (arbitrary units), one call at a time but from any goroutine.
 	Progress func(done, total int)
 }
 
@@ -109,22 +111,29 @@ func Analyze(ctx context.Context, in Input) (*Result, error) {
 	if err := r.bands(ctx, g, in.Interval); err != nil {
 		return nil, err
 	}
-	in.Progress(1, 4)
 	r.field(g)
+	in.Progress(progressStep0, progressTotal)
 	if err := r.stepTouch(ctx, in, crit); err != nil {
 		return nil, err
 	}
-	in.Progress(2, 4)
+	in.Progress(progressStep1, progressTotal)
 	r.flag(g, in, crit)
 	r.classes(g, crit)
 	r.Cumulative = Cumulative(in.V)
-	in.Progress(3, 4)
 	if in.Suggest > 0 {
 		r.Suggestions = Suggest(g, in, r.Step, in.Suggest)
 	}
-	in.Progress(4, 4)
+	in.Progress(progressTotal, progressTotal)
 	return r, nil
 }
+
+// Progress units of Analyze: bands and field up to progressStep0, the step
+// pass (grounding) up to progressStep1, zones and suggestions the rest.
+const (
+	progressStep0 = 10
+	progressStep1 = 85
+	progressTotal = 100
+)
 
 // bands sets the interval, levels, bands and contour lines.
 func (r *Result) bands(ctx context.Context, g *interp.Grid, interval float64) error {
@@ -150,4 +159,21 @@ func (r *Result) bands(ctx context.Context, g *interp.Grid, interval float64) er
 	var err error
 	r.Contours, err = contour.Lines(ctx, g, r.Levels)
 	return err
+}
+
+// BandRange returns the value range of band b: from the level below it (or
+// Min for band 0) to the level above it (or Max for the last band). It
+// returns NaNs for a band that does not exist.
+func (r *Result) BandRange(b int) (lo, hi float64) {
+	if b < 0 || b > len(r.Levels) || math.IsNaN(r.Min) {
+		return math.NaN(), math.NaN()
+	}
+	lo, hi = r.Min, r.Max
+	if b > 0 {
+		lo = r.Levels[b-1]
+	}
+	if b < len(r.Levels) {
+		hi = r.Levels[b]
+	}
+	return lo, hi
 }

@@ -91,6 +91,17 @@ func TestFieldAndAzimuth(t *testing.T) {
 	if n := len(r.Levels) + 1; n < contour.MinBands || n > contour.MaxBands {
 		t.Errorf("automatic interval %g gives %d bands", r.Interval, n)
 	}
+	// V = −3x − 4y over [−3, 3]² spans ±21 V; bands of 5 V from −21.
+	lo, hi := r.BandRange(0)
+	if r.Interval != 5 || lo != -21 || hi != -20 {
+		t.Errorf("interval %g, band 0 from %g to %g; want 5 V, −21 to −20", r.Interval, lo, hi)
+	}
+	if lo, hi := r.BandRange(len(r.Levels)); lo != 20 || hi != 21 {
+		t.Errorf("last band from %g to %g, want 20 to 21", lo, hi)
+	}
+	if lo, _ := r.BandRange(-1); !math.IsNaN(lo) {
+		t.Errorf("band -1 has a range")
+	}
 }
 
 // TestConcreteClasses: V falls linearly from −100 to −500 mV CSE across
@@ -128,6 +139,21 @@ func TestCumulative(t *testing.T) {
 		if got[i].Value != want[i].Value || math.Abs(got[i].Percent-want[i].Percent) > 1e-12 {
 			t.Errorf("Cumulative[%d] = %v, want %v (Hazen plotting position)", i, got[i], want[i])
 		}
+	}
+}
+
+func TestQuantile(t *testing.T) {
+	cum := Cumulative([]float64{-400, -300, -200, -100}) // at 12.5, 37.5, 62.5, 87.5 %
+	tests := []struct {
+		p, want float64
+	}{{0, -400}, {12.5, -400}, {25, -350}, {50, -250}, {87.5, -100}, {100, -100}}
+	for _, tt := range tests {
+		if got := Quantile(cum, tt.p); got != tt.want {
+			t.Errorf("Quantile(%g %%) = %g, want %g", tt.p, got, tt.want)
+		}
+	}
+	if !math.IsNaN(Quantile(nil, 50)) {
+		t.Errorf("Quantile of no readings is not NaN")
 	}
 }
 

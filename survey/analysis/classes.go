@@ -1,7 +1,9 @@
 package analysis
 
 import (
+	"math"
 	"slices"
+	"sort"
 
 	"isofield/interp"
 	"isofield/survey/criteria"
@@ -68,4 +70,21 @@ func Cumulative(vs []float64) []CumPoint {
 		out[i] = CumPoint{v, 100 * (float64(i) + 0.5) / float64(len(s))}
 	}
 	return out
+}
+
+// Quantile returns the value at percent p (0..100) of a cumulative curve by
+// linear interpolation between its points (the end values beyond them), or
+// NaN for an empty curve.
+func Quantile(cum []CumPoint, p float64) float64 {
+	switch {
+	case len(cum) == 0:
+		return math.NaN()
+	case p <= cum[0].Percent:
+		return cum[0].Value
+	case p >= cum[len(cum)-1].Percent:
+		return cum[len(cum)-1].Value
+	}
+	i := sort.Search(len(cum), func(i int) bool { return cum[i].Percent >= p })
+	a, b := cum[i-1], cum[i]
+	return a.Value + (p-a.Percent)/(b.Percent-a.Percent)*(b.Value-a.Value)
 }

@@ -25,9 +25,10 @@
 //
 // Step voltage (StepVoltage) is the largest potential difference between
 // two points 1 m apart around a node, sampled from the interpolant, not
-// |E| × 1 m; it costs about 35 evaluations of the interpolant per node and
-// runs on all cores. Touch voltage is |GPR − V| where a person standing at
-// the node could reach the grounded structure.
+// |E| × 1 m: 35 samples per node, read through a bicubic Hermite surface
+// of the interpolant on a grid of at most 0.25 m spacing where that is
+// cheaper (StepGrid), on all cores. Touch voltage is |GPR − V| where a
+// person standing at the node could reach the grounded structure.
 //
 // Nothing here is a safety authority: Result.Criterion carries the sources,
 // warnings and cautions that must be shown with every result.

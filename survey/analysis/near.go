@@ -48,18 +48,24 @@ func (ix *nearIndex) bucket(x, y float64) int {
 	return j*ix.nx + i
 }
 
+// maxNearest bounds k in nearest.
+const maxNearest = 8
+
 // nearest returns the k nearest readings to (x, y), nearest first, with
-// their distances. It returns fewer when there are fewer readings.
+// their distances; fewer when there are fewer readings. It panics if k >
+// maxNearest (a caller's bug).
 func (ix *nearIndex) nearest(x, y float64, k int) (idx []int, dist []float64) {
-	if len(ix.xs) == 0 || k <= 0 {
+	if k > maxNearest {
+		panic("analysis: nearest with k > maxNearest")
+	}
+	k = min(k, len(ix.xs))
+	if k <= 0 {
 		return nil, nil
 	}
+	var bi [maxNearest]int
+	var bd [maxNearest]float64
+	n := 0
 	ci, cj := ix.cell(x, y)
-	type cand struct {
-		i int
-		d float64
-	}
-	var cs []cand
 	for r := 0; ; r++ {
 		for j := cj - r; j <= cj+r; j++ {
 			for i := ci - r; i <= ci+r; i++ {
@@ -67,23 +73,35 @@ func (ix *nearIndex) nearest(x, y float64, k int) (idx []int, dist []float64) {
 					continue
 				}
 				for _, p := range ix.buckets[j*ix.nx+i] {
-					cs = append(cs, cand{p, math.Hypot(ix.xs[p]-x, ix.ys[p]-y)})
+					n = insertBest(bi[:], bd[:], n, k, p, math.Hypot(ix.xs[p]-x, ix.ys[p]-y))
 				}
 			}
 		}
-		// Every reading outside the rings searched so far is farther than
-		// r bucket widths from the query's bucket.
-		if len(cs) >= min(k, len(ix.xs)) {
-			sort.Slice(cs, func(a, b int) bool { return cs[a].d < cs[b].d })
-			if cs[min(k, len(cs))-1].d <= float64(r)*ix.cs || r > ix.nx+ix.ny {
-				break
-			}
+		// Every reading outside the rings searched so far is at least r
+		// bucket widths away from the query.
+		if n == k && bd[k-1] <= float64(r)*ix.cs || r > ix.nx+ix.ny {
+			break
 		}
 	}
-	for n := 0; n < min(k, len(cs)); n++ {
-		idx, dist = append(idx, cs[n].i), append(dist, cs[n].d)
+	return append([]int(nil), bi[:n]...), append([]float64(nil), bd[:n]...)
+}
+
+// insertBest inserts (p, d) into the n sorted best entries, keeping at most
+// k, and returns the new count.
+func insertBest(bi []int, bd []float64, n, k, p int, d float64) int {
+	if n == k && d >= bd[k-1] {
+		return n
 	}
-	return idx, dist
+	if n < k {
+		n++
+	}
+	m := n - 1
+	for m > 0 && bd[m-1] > d {
+		bi[m], bd[m] = bi[m-1], bd[m-1]
+		m--
+	}
+	bi[m], bd[m] = p, d
+	return n
 }
 
 func abs(a int) int {

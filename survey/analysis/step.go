@@ -141,12 +141,20 @@ func eachRow(ctx context.Context, ny int, fn func(j int)) error {
 // maxRefinedNodes); otherwise f is sampled directly. The surface makes the
 // pass independent of the number of readings.
 func StepGrid(ctx context.Context, f interp.Interpolant, g *interp.Grid) ([]float64, error) {
+	return stepGrid(ctx, f, g, nil)
+}
+
+// stepGrid is StepGrid reporting the rows done through progress (if not
+// nil), one call at a time.
+func stepGrid(ctx context.Context, f interp.Interpolant, g *interp.Grid, progress func(done, total int)) ([]float64, error) {
 	s := newStepSampler(criteria.StepDistance)
 	f, err := stepSurface(ctx, f, g, s.d)
 	if err != nil {
 		return nil, err
 	}
 	out := make([]float64, g.Len())
+	var mu sync.Mutex
+	rows := 0
 	err = eachRow(ctx, g.NY, func(j int) {
 		for i := range g.NX {
 			k := g.Index(i, j)
@@ -155,6 +163,12 @@ func StepGrid(ctx context.Context, f interp.Interpolant, g *interp.Grid) ([]floa
 				x, y := g.Node(i, j)
 				out[k] = s.at(f, x, y)
 			}
+		}
+		if progress != nil {
+			mu.Lock()
+			rows++
+			progress(rows, g.NY)
+			mu.Unlock()
 		}
 	})
 	if err != nil {
@@ -170,7 +184,8 @@ func (r *Result) stepTouch(ctx context.Context, in Input, c *criteria.Criterion)
 			r.Notes = append(r.Notes, "no interpolant given: step voltages not computed")
 		} else {
 			var err error
-			if r.Step, err = StepGrid(ctx, in.Model, in.Grid); err != nil {
+			report := func(d, t int) { in.Progress(progressStep0+(progressStep1-progressStep0)*d/t, progressTotal) }
+			if r.Step, err = stepGrid(ctx, in.Model, in.Grid, report); err != nil {
 				return err
 			}
 		}

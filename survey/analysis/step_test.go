@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"slices"
 	"strings"
 	"testing"
 
@@ -184,5 +185,25 @@ func BenchmarkStepGridModel(b *testing.B) {
 				}
 			}
 		})
+	}
+}
+
+func TestAnalyzeProgress(t *testing.T) {
+	hs := halfSpace{rho: 100, src: []source{{0, 0, 0.5, 300}}}
+	g := interp.NewGridN(-3, -3, 0.5, 0.5, 13, 13)
+	evaluate(g, hs)
+	var got []int
+	in := Input{Grid: g, Model: hs, Unit: "V", Criteria: criteria.Settings{Preset: criteria.Grounding},
+		Progress: func(d, total int) {
+			if total != 100 {
+				t.Errorf("progress total %d, want 100", total)
+			}
+			got = append(got, d)
+		}}
+	if _, err := Analyze(context.Background(), in); err != nil {
+		t.Fatal(err)
+	}
+	if len(got) < 13 || got[len(got)-1] != 100 || !slices.IsSorted(got) {
+		t.Errorf("progress %v, want a rising sequence through the 13 step rows to 100", got)
 	}
 }

@@ -51,6 +51,11 @@ const (
 	AutoFieldPercentile = 95.0
 )
 
+// OverprotectionMV is the polarised potential, in mV versus CSE, more
+// negative than which cathodic protection may overprotect (practice, from
+// memory: FIELD_FACTS §4).
+const OverprotectionMV = -1200.0
+
 // C876 band edges in mV versus CSE (ASTM C876, numeric technique,
 // App. X1; band values quoted in a secondary source).
 const (

@@ -223,7 +223,7 @@ func resolveCP(c *Criterion, set Settings) error {
 		lim = DefaultCPLimitMV
 	}
 	v, err1 := fromCSE(lim, set, c.Unit)
-	over, err2 := fromCSE(-1200, set, c.Unit)
+	over, err2 := fromCSE(OverprotectionMV, set, c.Unit)
 	if err := firstErr(err1, err2); err != nil {
 		return err
 	}
@@ -231,8 +231,8 @@ func resolveCP(c *Criterion, set Settings) error {
 	c.AboveLabel = fmt.Sprintf("less negative than %g mV CSE%s: criterion not met", lim, onScale(v, c.Unit, set))
 	c.Classes = []Class{
 		{fmt.Sprintf("less negative than %g mV CSE: not met", lim), v, math.Inf(1), false, false, 2},
-		{fmt.Sprintf("%g to −1200 mV CSE: met", lim), over, v, true, true, 0},
-		{"more negative than −1200 mV CSE: possible overprotection (practice, from memory)", math.Inf(-1), over, false, false, 1},
+		{fmt.Sprintf("%g to %g mV CSE: met", lim, OverprotectionMV), over, v, true, true, 0},
+		{fmt.Sprintf("more negative than %g mV CSE: possible overprotection (practice, from memory)", OverprotectionMV), math.Inf(-1), over, false, false, 1},
 	}
 	autoField(c, set, "possible coating defects")
 	c.Sources = []Source{

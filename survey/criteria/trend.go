@@ -68,7 +68,6 @@ func FitPlane(xs, ys, vs []float64) (Plane, error) {
 	for _, i := range idx {
 		w[i] = 1
 	}
-	res := make([]float64, 0, len(idx))
 	for range maxIRLS {
 		q, ok := weightedPlane(p, xs, ys, vs, w, idx)
 		if !ok {
@@ -76,23 +75,32 @@ func FitPlane(xs, ys, vs []float64) (Plane, error) {
 		}
 		change := math.Abs(q.A-p.A) + math.Abs(q.B-p.B) + math.Abs(q.C-p.C)
 		p = q
-		res = res[:0]
-		for _, i := range idx {
-			res = append(res, math.Abs(vs[i]-p.At(xs[i], ys[i])))
-		}
-		s := madNormal * median(res)
-		if s == 0 {
+		if !huberWeights(p, xs, ys, vs, w, idx) {
 			break // most readings lie on the plane exactly
-		}
-		for _, i := range idx {
-			r := math.Abs(vs[i]-p.At(xs[i], ys[i])) / s
-			w[i] = min(1, huberC/r)
 		}
 		if change <= irlsRelTol*(math.Abs(p.A)+math.Abs(p.B)+math.Abs(p.C)+1e-300) {
 			break
 		}
 	}
 	return p, nil
+}
+
+// huberWeights sets w to Huber's weights min(1, c/|r/s|) of the residuals
+// r from plane p, with s the normal-consistent median absolute residual. It
+// returns false when s is zero (no reweighting possible or needed).
+func huberWeights(p Plane, xs, ys, vs, w []float64, idx []int) bool {
+	res := make([]float64, 0, len(idx))
+	for _, i := range idx {
+		res = append(res, math.Abs(vs[i]-p.At(xs[i], ys[i])))
+	}
+	s := madNormal * median(res)
+	if s == 0 {
+		return false
+	}
+	for _, i := range idx {
+		w[i] = min(1, huberC*s/math.Abs(vs[i]-p.At(xs[i], ys[i])))
+	}
+	return true
 }
 
 // weightedPlane solves the 3×3 weighted normal equations about (X0, Y0) by

@@ -1,6 +1,7 @@
 package export
 
 import (
+	"cmp"
 	"context"
 	"crypto/sha256"
 	"encoding/hex"
@@ -8,7 +9,9 @@ import (
 	"io"
 	"math"
 	"path/filepath"
+	"runtime"
 	"strings"
+	"sync"
 	"time"
 
 	"isofield/interp"
@@ -94,7 +97,8 @@ func latLonColumns(g *interp.Grid, lat0, lon0 float64) []Column {
 // the configuration that made res; it is shown in every output. Each file
 // is written atomically; an existing file is replaced only with
 // opt.Force, and neither the survey's files nor opt.Inputs are ever
-// written. All stops at the first error; files already written stay.
+// written. The files are written on all cores; on an error the files
+// already written stay, and All returns them with the first error.
 func All(ctx context.Context, dir string, res *pipeline.Result, cfg pipeline.Config, opt Options) ([]string, error) {
 	b, err := FromResult(ctx, res, cfg, opt)
 	if err != nil {
@@ -106,25 +110,62 @@ func All(ctx context.Context, dir string, res *pipeline.Result, cfg pipeline.Con
 	if err := precheck(dir, append(jobs, job{name: FileInfo}), fo); err != nil {
 		return nil, err
 	}
-	var done []string
-	var sums [][2]string
-	for _, j := range jobs {
-		if err := ctx.Err(); err != nil {
-			return done, err
+	// The maps are drawn once here, so the jobs below only read b.
+	for _, k := range []MapKind{PotentialMap, FieldMap} {
+		if err := b.WriteMapSVG(io.Discard, k); err != nil {
+			return nil, err
 		}
-		path := filepath.Join(dir, j.name)
-		h := sha256.New()
-		if err := fileout.Write(path, fo, func(w io.Writer) error { return j.write(io.MultiWriter(w, h)) }); err != nil {
-			return done, err
-		}
-		done = append(done, path)
-		sums = append(sums, [2]string{j.name, hex.EncodeToString(h.Sum(nil))})
+	}
+	done, sums, err := runJobs(ctx, dir, jobs, fo)
+	if err != nil {
+		return done, err
 	}
 	path := filepath.Join(dir, FileInfo)
 	if err := fileout.Write(path, fo, func(w io.Writer) error { return b.writeInfo(w, sums) }); err != nil {
 		return done, err
 	}
 	return append(done, path), nil
+}
+
+// runJobs writes the jobs' files on all cores and returns, in job order,
+// the paths written and their SHA-256. On errors it returns the first in
+// job order with the files that were written.
+func runJobs(ctx context.Context, dir string, jobs []job, fo fileout.Options) ([]string, [][2]string, error) {
+	errs := make([]error, len(jobs))
+	sums := make([]string, len(jobs))
+	next := make(chan int)
+	var wg sync.WaitGroup
+	for range max(1, runtime.GOMAXPROCS(0)) {
+		wg.Go(func() {
+			for i := range next {
+				errs[i] = ctx.Err()
+				if errs[i] != nil {
+					continue
+				}
+				h := sha256.New()
+				errs[i] = fileout.Write(filepath.Join(dir, jobs[i].name), fo,
+					func(w io.Writer) error { return jobs[i].write(io.MultiWriter(w, h)) })
+				sums[i] = hex.EncodeToString(h.Sum(nil))
+			}
+		})
+	}
+	for i := range jobs {
+		next <- i
+	}
+	close(next)
+	wg.Wait()
+	var done []string
+	var out [][2]string
+	var first error
+	for i, j := range jobs {
+		if errs[i] != nil {
+			first = cmp.Or(first, errs[i])
+			continue
+		}
+		done = append(done, filepath.Join(dir, j.name))
+		out = append(out, [2]string{j.name, sums[i]})
+	}
+	return done, out, first
 }
 
 // writeInfo writes what made the export and the SHA-256 of each file, so

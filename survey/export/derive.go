@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"isofield/interp/contour"
@@ -58,6 +59,7 @@ func (b *Bundle) takeAnalysis(ctx context.Context, a *analysis.Result, cfg pipel
 		b.Interval, b.Levels, b.Lines = a.Interval, a.Levels, a.Contours
 		b.Flagged, b.Criterion, b.FieldThreshold = a.Flagged, a.Criterion, a.FieldThreshold
 		b.Zones, b.Classes, b.Infill = a.Zones, a.Classes, a.Suggestions
+		b.Cumulative = a.Cumulative
 		b.Notes = append(b.Notes, a.Notes...)
 		return nil
 	}
@@ -107,5 +109,6 @@ func marks(s *survey.Survey, res *pipeline.Result) []Mark {
 	return out
 }
 
-// fmtNum writes v in the shortest form that reads back exactly.
-func fmtNum(v float64) string { return fmt.Sprint(v) }
+// fmtNum writes v as a plain decimal (no exponent) in the shortest form
+// that reads back exactly.
+func fmtNum(v float64) string { return strconv.FormatFloat(v, 'f', -1, 64) }

@@ -109,6 +109,7 @@ func TestGridCSVRoundTrip(t *testing.T) {
 		{"projected seven-digit northing", 654321.125, 5987654.5, 0.1, 17, 40, "V"},
 		{"single row", -3, 7, 2, 9, 1, "V"},
 		{"single column", 5, -2, 1, 1, 6, "mV"},
+		{"several chunks written in parallel", 1000.5, 2000.25, 0.5, 250, 100, "mV"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

@@ -1,12 +1,15 @@
 package export
 
 import (
+	"image"
 	"image/color"
+	imgdraw "image/draw"
 	"math"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
 
 	"isofield/interp/contour"
 	"isofield/survey/pipeline"
@@ -25,19 +28,21 @@ var (
 func (b *Bundle) layerFor(kind MapKind) *layer {
 	g := b.Grid
 	if kind == PotentialMap {
-		return &layer{grid: g, value: b.usable(func(k int) float64 { return g.V[k] }),
-			levels: b.Levels, interval: b.Interval, colours: bandColours(b.Levels, b.Interval, false)}
+		return newLayer(g, b.usable(func(k int) float64 { return g.V[k] }),
+			b.Levels, b.Interval, bandColours(b.Levels, b.Interval, false))
 	}
 	f := b.usable(func(k int) float64 { return math.Hypot(g.GX[k], g.GY[k]) })
+	ly := newLayer(g, f, nil, 0, nil)
 	hi := 0.0
-	for k := range g.Len() {
-		if v := f(k); v > hi {
+	for _, v := range ly.vals {
+		if v > hi {
 			hi = v
 		}
 	}
-	iv := contour.NiceInterval(0, hi)
-	lv := contour.Levels(0, hi, iv)
-	return &layer{grid: g, value: f, levels: lv, interval: iv, colours: bandColours(lv, iv, true)}
+	ly.interval = contour.NiceInterval(0, hi)
+	ly.levels = contour.Levels(0, hi, ly.interval)
+	ly.colours = bandColours(ly.levels, ly.interval, true)
+	return ly
 }
 
 // usable wraps a node value so that masked and non-finite nodes are NaN.
@@ -79,17 +84,35 @@ func (m *mapLayer) Plot(c draw.Canvas, p *plot.Plot) {
 	g := m.b.Grid
 	x0, y0 := g.Node(0, 0)
 	x1, y1 := g.Node(g.NX-1, g.NY-1)
-	r := vg.Rectangle{Min: tr(x0, y0), Max: tr(x1, y1)}
-	px := func(l vg.Length) int { return max(1, int(math.Ceil(l.Points()/72*float64(m.dpi)))) }
-	c.DrawImage(r, m.ly.rasterize(px(r.Size().X), px(r.Size().Y)))
+	m.drawBands(c, vg.Rectangle{Min: tr(x0, y0), Max: tr(x1, y1)})
 	if m.kind == PotentialMap {
 		m.drawLines(c, tr)
 	}
 	m.drawZones(c, tr)
+	m.drawInfill(c, tr) // under the readings: a suggestion may sit on a suspect one
 	m.drawReadings(c, tr)
-	m.drawInfill(c, tr)
 	drawScaleBar(c, p)
 	drawNorthArrow(c)
+}
+
+// drawBands draws the band image into r. On a raster canvas it is drawn
+// pixel for pixel straight into the picture (no resampling); elsewhere it
+// is rasterised at m.dpi and placed by the canvas.
+func (m *mapLayer) drawBands(c draw.Canvas, r vg.Rectangle) {
+	if vc, ok := c.Canvas.(*vgimg.Canvas); ok {
+		img := vc.Image()
+		k := vc.DPI() / 72
+		hgt := img.Bounds().Dy()
+		x0, x1 := int(math.Round(r.Min.X.Points()*k)), int(math.Round(r.Max.X.Points()*k))
+		y0, y1 := hgt-int(math.Round(r.Max.Y.Points()*k)), hgt-int(math.Round(r.Min.Y.Points()*k))
+		if x1 > x0 && y1 > y0 {
+			band := m.ly.rasterize(x1-x0, y1-y0)
+			imgdraw.Draw(img, image.Rect(x0, y0, x1, y1), band, image.Point{}, imgdraw.Over)
+			return
+		}
+	}
+	px := func(l vg.Length) int { return max(1, int(math.Ceil(l.Points()/72*float64(m.dpi)))) }
+	c.DrawImage(r, m.ly.rasterize(px(r.Size().X), px(r.Size().Y)))
 }
 
 // drawLines strokes the equipotential lines and labels the longer ones.
@@ -135,10 +158,15 @@ func (m *mapLayer) drawZones(c draw.Canvas, tr func(x, y float64) vg.Point) {
 	}
 }
 
-// drawReadings marks each reading by its QA status.
+// drawReadings marks each reading by its QA status, the ok ones first so
+// that no suspect or excluded mark hides under them.
 func (m *mapLayer) drawReadings(c draw.Canvas, tr func(x, y float64) vg.Point) {
-	for _, r := range m.b.Readings {
-		c.DrawGlyph(readingGlyph(r.Status), tr(r.X, r.Y))
+	for _, okPass := range []bool{true, false} {
+		for _, r := range m.b.Readings {
+			if (r.Status == "ok") == okPass {
+				c.DrawGlyph(readingGlyph(r.Status), tr(r.X, r.Y))
+			}
+		}
 	}
 }
 

@@ -86,13 +86,14 @@ func (b *Bundle) WriteMapPNG(w io.Writer, kind MapKind, dpi int) error {
 	return nil
 }
 
-// MapPixels returns the pixel size of a PNG map at dpi (0: MapDPI), as
-// vgimg rounds it.
+// MapPixels returns the pixel size of a PNG map at dpi (0: MapDPI), rounded
+// to the nearest pixel as vgimg does.
 func MapPixels(dpi int) (w, h int) {
 	if dpi <= 0 {
 		dpi = MapDPI
 	}
-	return int(math.Ceil((MapWidth.Points() / 72) * float64(dpi))), int(math.Ceil((MapHeight.Points() / 72) * float64(dpi)))
+	px := func(l vg.Length) int { return int(l.Points()/72*float64(dpi) + 0.5) }
+	return px(MapWidth), px(MapHeight)
 }
 
 // drawMap lays out the plot, the legend panel and the footer on c.

@@ -14,7 +14,10 @@ import (
 
 // Bundle is everything the exports draw on, gathered once from a pipeline
 // result (see FromResult) so that every output shows the same numbers.
-// Tests and demos may fill one by hand.
+// Tests and demos may fill one by hand; change no field after the first
+// write. WriteMapSVG keeps its drawing in the bundle the first time, so
+// the writers may run concurrently only once both SVG maps were drawn (All
+// does so).
 type Bundle struct {
 	Title   string
 	Unit    string // "V" or "mV"
@@ -40,10 +43,12 @@ type Bundle struct {
 	Zones          []analysis.Zone
 	Classes        []analysis.ClassArea
 	Infill         []analysis.Suggestion
-	Readings       []Mark
-	Cautions       []string
-	QA             QASummary
-	Notes          []string
+	// Cumulative is the cumulative frequency of the gridded readings.
+	Cumulative []analysis.CumPoint
+	Readings   []Mark
+	Cautions   []string
+	QA         QASummary
+	Notes      []string
 	// Plane converts local metres back to WGS 84 when the survey was read
 	// from latitude and longitude; nil for local or projected metres.
 	Plane *geo.Plane

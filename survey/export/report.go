@@ -47,6 +47,7 @@ type reportView struct {
 	Rules                  []string
 	Items                  []reportItem
 	PotentialMap, FieldMap template.URL
+	Cumulative             template.URL
 	Zones                  []reportZone
 	Classes                []reportClass
 	Infill                 []reportInfill
@@ -89,7 +90,7 @@ func (b *Bundle) reportView() (*reportView, error) {
 	b.describeSurvey(v)
 	for _, m := range b.QA.Items {
 		v.Items = append(v.Items, reportItem{ID: m.ID, Source: b.source(m.Index), X: f3(m.X), Y: f3(m.Y),
-			Original: f4(m.Original), Corrected: f4(m.Corrected), Status: m.Status, Notes: m.Notes})
+			Original: sig6(m.Original), Corrected: sig6(m.Corrected), Status: m.Status, Notes: m.Notes})
 	}
 	var err error
 	if v.PotentialMap, err = b.svgURI(PotentialMap); err != nil {
@@ -97,6 +98,11 @@ func (b *Bundle) reportView() (*reportView, error) {
 	}
 	if v.FieldMap, err = b.svgURI(FieldMap); err != nil {
 		return nil, err
+	}
+	if len(b.Classes) > 0 {
+		if v.Cumulative, err = b.cumulativeSVG(); err != nil {
+			return nil, err
+		}
 	}
 	b.describeResults(v)
 	return v, nil
@@ -118,8 +124,8 @@ func (b *Bundle) describeSurvey(v *reportView) {
 func (b *Bundle) describeResults(v *reportView) {
 	for _, z := range b.Zones {
 		rz := reportZone{Rank: z.Rank, Label: z.Label, Area: f1(z.AreaM2),
-			Centroid: f3(z.CentroidX) + ", " + f3(z.CentroidY), Peak: f4(z.Peak) + " " + z.Unit,
-			PeakAt: f3(z.PeakX) + ", " + f3(z.PeakY), Mean: f4(z.Mean) + " " + z.Unit}
+			Centroid: f3(z.CentroidX) + ", " + f3(z.CentroidY), Peak: sig6(z.Peak) + " " + z.Unit,
+			PeakAt: f3(z.PeakX) + ", " + f3(z.PeakY), Mean: sig6(z.Mean) + " " + z.Unit}
 		var names []string
 		for _, i := range z.Readings {
 			names = append(names, b.readingName(i))
@@ -198,6 +204,6 @@ func statusText(s string) string {
 	return s
 }
 
-func f1(v float64) string { return strconv.FormatFloat(v, 'f', 1, 64) }
-func f3(v float64) string { return strconv.FormatFloat(v, 'f', 3, 64) }
-func f4(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
+func f1(v float64) string   { return strconv.FormatFloat(v, 'f', 1, 64) }
+func f3(v float64) string   { return strconv.FormatFloat(v, 'f', 3, 64) }
+func sig6(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }

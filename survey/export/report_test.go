@@ -56,7 +56,6 @@ func checkSVG(t *testing.T, b64 string) {
 		t.Fatalf("embedded map: %v", err)
 	}
 	d := xml.NewDecoder(bytes.NewReader(raw))
-	d.Strict = false
 	root := ""
 	for {
 		tok, err := d.Token()

@@ -205,14 +205,34 @@ func newGrid(xs, ys []float64, cfg Config) (*interp.Grid, error) {
 	return g, nil
 }
 
-// AutoSpacing returns a nice grid spacing (1, 2 or 5 × 10ⁿ metres) that
-// puts about 150 nodes along the larger side of a w × h extent.
+// AutoSpacing returns the nice grid spacing (1, 2 or 5 × 10ⁿ metres)
+// nearest, on a log scale, to the one that puts 150 nodes along the larger
+// side of a w × h extent; so the longer side gets between about 95 and 235
+// nodes.
 func AutoSpacing(w, h float64) float64 {
 	l := max(w, h)
 	if l <= 0 || math.IsNaN(l) || math.IsInf(l, 0) {
 		return 1
 	}
-	return NiceStep(l / 150)
+	want := l / 150
+	lo := NiceStep(want)
+	hi := niceAbove(lo)
+	if math.Log(hi/want) < math.Log(want/lo) {
+		return hi
+	}
+	return lo
+}
+
+// niceAbove returns the next nice step above the nice step v.
+func niceAbove(v float64) float64 {
+	e := math.Pow(10, math.Floor(math.Log10(v)+1e-9))
+	switch f := math.Round(v / e); f {
+	case 1:
+		return 2 * e
+	case 2:
+		return 5 * e
+	}
+	return 10 * e
 }
 
 // NiceStep rounds v > 0 down to 1, 2 or 5 × 10ⁿ.

@@ -197,6 +197,8 @@ func TestEdits(t *testing.T) {
 			{File: "e.csv", Line: 4, Exclude: true, Reason: "x"},
 			{File: "e.csv", Line: 4, Reason: "checked"}},
 			[]Status{Suspect, Suspect, OK}, ""},
+		{"inclusion vouches for a suspect", []Edit{{File: "e.csv", Line: 3, Reason: "re-read by hand, same value"}},
+			[]Status{Suspect, OK, OK}, ""},
 		{"excluded wins over suspect", []Edit{{File: "e.csv", Line: 2, Exclude: true}},
 			[]Status{Excluded, OK, OK}, ""},
 		{"unknown line", []Edit{{File: "e.csv", Line: 40, Exclude: true}},
@@ -384,5 +386,36 @@ func TestExcludedBaseReadingLeftOut(t *testing.T) {
 	// 4: drift −3 mV, corrected −207.
 	if math.Abs(r.Corrected[3]+207) > 1e-9 || r.Status[2] != Excluded {
 		t.Errorf("P2 corrected %g (want -207), bad base status %v", r.Corrected[3], r.Status[2])
+	}
+}
+
+// TestUse checks which readings go into the grid.
+func TestUse(t *testing.T) {
+	b := newBuilder("u.csv", survey.Millivolt)
+	b.add("A", 0, 0, -300) // agreeing pair: gridded once
+	b.add("A", 0, 0, -304)
+	b.add("C", 5, 0, -300) // disagreeing pair: suspects
+	b.add("C", 5, 0, -350)
+	b.add("D", 9, 9, -200)
+	tests := []struct {
+		name        string
+		edits       []Edit
+		useSuspects bool
+		want        []bool
+	}{
+		{"default", nil, false, []bool{true, false, false, false, true}},
+		{"with suspects", nil, true, []bool{true, false, true, true, true}},
+		{"first repeat excluded", []Edit{{File: "u.csv", Line: 2, Exclude: true}}, false, []bool{false, true, false, false, true}},
+		{"excluded never", []Edit{{File: "u.csv", Line: 6, Exclude: true}}, true, []bool{true, false, true, true, false}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			r := mustRun(t, b.s, Settings{SpikeK: -1}, tt.edits)
+			for i, want := range tt.want {
+				if got := r.Use(i, tt.useSuspects); got != want {
+					t.Errorf("Use(%d, %v) = %v, want %v", i, tt.useSuspects, got, want)
+				}
+			}
+		})
 	}
 }

@@ -13,8 +13,10 @@
 //  1. Reference conversion: readings taken against one electrode are put
 //     on Settings.To (see package electrode for the offsets and their
 //     sources). A reading's own Reference overrides Settings.From.
+//
 //  2. Current scaling: V × FaultCurrent / test current, the test current
 //     being the reading's own or Settings.TestCurrent.
+//
 //  3. Drift: the base station's readings, in time order, give a curve B(t)
 //     (piecewise linear, or monotone cubic); every reading is corrected by
 //     V(t) − [B(t) − B(t₁)], with t₁ the first base reading. Without a
@@ -22,6 +24,7 @@
 //     file, the order of the readings stands in for time and the report
 //     says so. Before the first and after the last base reading the
 //     correction is held at its end value.
+//
 //  4. Repeats: readings sharing an id, or within Settings.RepeatDist of each
 //     other, form a group. A group whose spread is within the tolerance
 //     agrees: every member gets the group mean as its corrected value and
@@ -31,6 +34,7 @@
 //     After drift correction the base station's readings agree by
 //     construction, so the base counts once, as one spot, and never forms a
 //     cluster of near-coincident values in the fit.
+//
 //  5. Spikes: a radial basis interpolant (package interp, its default
 //     thin-plate spline; Rippa's closed form of the leave-one-out error for
 //     the global fit, the local equivalent for large surveys) is fitted to
@@ -42,26 +46,32 @@
 //     gap factor g = max(1, (d/h)²), d the distance to the reading's
 //     nearest neighbour and h the survey's typical spacing, allows for the
 //     larger interpolation error expected in a gap or on a sharp peak
-//     sampled sparsely; on a regular grid g is 1. A candidate
-//     is marked suspect only when it stands alone: if one of its six
-//     nearest spots (within 2.5 times the typical spacing) is a candidate
-//     of the same sign deviating at least half as much, the readings disagree
-//     with the fit together, which is a feature finer than the reading
-//     spacing (a real anomaly the interpolant cannot follow, or too coarse
-//     a grid), not a bad reading; such readings are noted and listed in
-//     Result.Steep, never marked. The
-//     suspects are then left out and the fit is made again, up to three
+//     sampled sparsely; on a regular grid g is 1.
+//
+//     A candidate is marked suspect only when it stands alone. If one of
+//     its six nearest spots (within 2.5 times the typical spacing) is a
+//     candidate of the same sign deviating at least half as much, the
+//     readings disagree with the fit together: a feature finer than the
+//     reading spacing (a real anomaly the interpolant cannot follow, or too
+//     coarse a grid), not a bad reading. Such readings are noted and listed
+//     in Result.Steep, never marked.
+//
+//     The suspects are then left out and the fit is made again, up to three
 //     times, so that one large spike does not make its neighbours look bad;
 //     readings not in the final fit get the out-of-sample residual at their
-//     position, which is what their leave-one-out residual means. A spot
-//     read more than once whose repeats agree (the base station among
-//     them) is confirmed by its repeats: it is noted, never marked as a
-//     spike. This is how a technician confirms a real anomaly in the
+//     position, which is what their leave-one-out residual means.
+//
+//     A spot read more than once whose repeats agree (the base station
+//     among them) is confirmed by its repeats: it is noted, never marked as
+//     a spike. This is how a technician confirms a real anomaly in the
 //     field, and it keeps an isolated base station, whose leave-one-out
 //     value is an extrapolation, from being flagged.
-//  6. Hand edits, last: an exclusion makes the reading excluded whatever
-//     its status (excluded wins); an inclusion undoes exclusions and gives
-//     the reading back its automatic status. A reading excluded by hand
+//
+//  6. Hand edits, last, in order (a later edit of a reading wins): an
+//     exclusion makes the reading excluded whatever its status (excluded
+//     wins over suspect); an inclusion makes it ok whatever the checks
+//     said: the user vouches for it, for example for a real anomaly the
+//     spike check doubted. A reading excluded by hand
 //     takes no part in the drift curve, the repeat means or the spike fit,
 //     so excluding the bad one of two disagreeing repeats lets the other
 //     agree.

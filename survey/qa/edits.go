@@ -63,20 +63,18 @@ func (c *checker) fileIndex(path string) int {
 	return -1
 }
 
-// applyEdits applies the hand edits last: an exclusion wins over any
-// status; an inclusion gives the reading back its automatic status.
+// applyEdits applies the hand edits last: an exclusion makes the reading
+// excluded whatever its status; an inclusion makes it ok, whatever the
+// checks said (the user vouches for it, as for a real anomaly the spike
+// check doubted).
 func (c *checker) applyEdits(plan editPlan) {
-	auto := map[int]Status{}
 	for k, i := range plan.reading {
 		e := plan.edits[k]
-		if _, ok := auto[i]; !ok {
-			auto[i] = c.res.Status[i]
-		}
 		if e.Exclude {
 			c.setStatus(i, Excluded, KindExclude, "excluded by hand: "+reasonOr(e.Reason))
 			continue
 		}
-		c.setStatus(i, auto[i], KindInclude, "included by hand: "+reasonOr(e.Reason))
+		c.setStatus(i, OK, KindInclude, "included by hand: "+reasonOr(e.Reason))
 	}
 }
 

@@ -3,7 +3,6 @@ package qa
 import (
 	"fmt"
 	"math"
-	"sort"
 )
 
 // unionFind is a disjoint-set forest over reading indexes.
@@ -63,22 +62,22 @@ func (c *checker) group() {
 	if d := c.set.RepeatDist; d > 0 {
 		c.joinNear(u, d)
 	}
-	members := map[int][]int{}
+	size := make([]int, n)
 	for i := range n {
-		r := u.find(i)
-		members[r] = append(members[r], i)
+		size[u.find(i)]++
 	}
-	roots := make([]int, 0, len(members))
-	for r, m := range members {
-		if len(m) > 1 {
-			roots = append(roots, r)
+	gi := make([]int, n) // group index of each root with partners
+	for r := range n {
+		gi[r] = -1
+		if size[r] > 1 {
+			gi[r] = len(c.res.Repeats)
+			c.res.Repeats = append(c.res.Repeats, RepeatGroup{Members: make([]int, 0, size[r])})
 		}
 	}
-	sort.Ints(roots)
-	for gi, r := range roots {
-		c.res.Repeats = append(c.res.Repeats, RepeatGroup{Members: members[r]})
-		for _, m := range members[r] {
-			c.res.Group[m] = gi
+	for i := range n {
+		if g := gi[u.find(i)]; g >= 0 {
+			c.res.Repeats[g].Members = append(c.res.Repeats[g].Members, i)
+			c.res.Group[i] = g
 		}
 	}
 	c.checkGroupPlaces()
@@ -87,7 +86,8 @@ func (c *checker) group() {
 // joinNear unions readings within d metres, hashing positions into cells
 // of side d so that only the 3 × 3 neighbouring cells are searched.
 func (c *checker) joinNear(u unionFind, d float64) {
-	cells := map[cell][]int{}
+	head := make(map[cell]int32, len(c.s.Readings)) // last reading in each cell
+	next := make([]int32, len(c.s.Readings))        // previous reading in the same cell
 	d2 := d * d
 	for i, rd := range c.s.Readings {
 		if math.IsNaN(rd.X) || math.IsNaN(rd.Y) || math.IsInf(rd.X, 0) || math.IsInf(rd.Y, 0) {
@@ -96,15 +96,21 @@ func (c *checker) joinNear(u unionFind, d float64) {
 		k := cell{int64(math.Floor(rd.X / d)), int64(math.Floor(rd.Y / d))}
 		for di := int64(-1); di <= 1; di++ {
 			for dj := int64(-1); dj <= 1; dj++ {
-				for _, j := range cells[cell{k.i + di, k.j + dj}] {
+				j, ok := head[cell{k.i + di, k.j + dj}]
+				for ok && j >= 0 {
 					o := c.s.Readings[j]
 					if dx, dy := rd.X-o.X, rd.Y-o.Y; dx*dx+dy*dy <= d2 {
-						u.union(i, j)
+						u.union(i, int(j))
 					}
+					j = next[j]
 				}
 			}
 		}
-		cells[k] = append(cells[k], i)
+		prev, ok := head[k]
+		if !ok {
+			prev = -1
+		}
+		next[i], head[k] = prev, int32(i)
 	}
 }
 

@@ -47,7 +47,7 @@ const (
 	KindDisagree  = "disagree"  // marked suspect: repeats disagree
 	KindSpike     = "spike"     // marked suspect: disagrees with neighbours
 	KindExclude   = "exclude"   // excluded by hand
-	KindInclude   = "include"   // included again by hand
+	KindInclude   = "include"   // included (vouched for) by hand: ok
 	KindNote      = "note"      // survey-wide remark, no value changed
 )
 
@@ -105,7 +105,7 @@ type DriftCurve struct {
 type SpikeInfo struct {
 	Reading  int
 	Residual float64 // value minus the prediction without the reading
-	Z        float64 // robust z: (Residual − median) / (1.4826 MAD)
+	Z        float64 // robust z: (Residual − median) / (1.4826 MAD × gap factor), see the package doc
 }
 
 // Conversion is a reference-electrode conversion applied to some readings.
@@ -165,7 +165,7 @@ type Result struct {
 // Use reports whether reading i should be gridded: it is not excluded, it
 // is not suspect (unless useSuspects), and it is the first member of its
 // repeat group when the group agrees (agreeing repeats count once, with the
-// group mean).
+// group mean). It panics if i is not a reading's index.
 func (r *Result) Use(i int, useSuspects bool) bool {
 	switch r.Status[i] {
 	case Excluded:
@@ -175,7 +175,10 @@ func (r *Result) Use(i int, useSuspects bool) bool {
 			return false
 		}
 	}
-	if g := r.Group[i]; g >= 0 && r.Repeats[g].Agree {
+	if i >= len(r.Group) {
+		return true
+	}
+	if g := r.Group[i]; g >= 0 && g < len(r.Repeats) && r.Repeats[g].Agree {
 		for _, m := range r.Repeats[g].Members {
 			if r.Status[m] == Excluded {
 				continue

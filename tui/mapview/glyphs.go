@@ -22,6 +22,7 @@ const (
 	glyphCursor     = '@'
 	glyphContourV   = '|'
 	glyphContourH   = '-'
+	glyphZeroLine   = '0'
 	glyphMarkA      = 'A'
 	glyphMarkB      = 'B'
 	glyphUpperHalf  = '▀'

@@ -197,6 +197,33 @@ func TestRenderHalfSpaceSigns(t *testing.T) {
 	}
 }
 
+// TestZeroLine draws band edges on V = x (a uniform field): the line at
+// x = 0 is drawn with the zero glyph in the column where the sign changes,
+// other edges with the ordinary line glyph.
+func TestZeroLine(t *testing.T) {
+	g := interp.NewGridN(-50, 0, 1, 1, 101, 41)
+	fill(g, func(x, y float64) (float64, float64, float64) { return x, 1, 0 })
+	d := NewData(g, NiceBands(-50, 50, 10), NiceBands(0, 1, 0), nil, nil)
+	r := NewRenderer(termenv.Ascii, DivergingPuOr(), SequentialViridis(), SequentialYlOrRd())
+	v := Fit(g, 101, 21)
+	v.Layers = LayerBands | LayerContours
+	for row, line := range strings.Split(r.Render(d, v), "\n") {
+		cells := []rune(line)
+		for c, got := range cells {
+			x, _ := v.CellCentre(c, row)
+			switch {
+			case got == '0' && math.Abs(x) > 1.5:
+				t.Fatalf("zero glyph at x = %g", x)
+			case got == '|' && math.Abs(x) < 0.5:
+				t.Fatalf("ordinary line glyph on the zero line at x = %g", x)
+			}
+		}
+		if !strings.ContainsRune(line, '0') || strings.Count(line, "|") != 8 {
+			t.Fatalf("row %d: want one zero line and eight other edges: %q", row, line)
+		}
+	}
+}
+
 func TestFitKeepsAspect(t *testing.T) {
 	g := interp.NewGridN(0, 0, 1, 1, 101, 101) // 100 m × 100 m
 	v := Fit(g, 80, 24)

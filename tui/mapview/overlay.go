@@ -50,8 +50,15 @@ func (r *Renderer) potAt(d *Data, i int) int16 {
 }
 
 // contours marks cells whose potential band differs from the cell to the
-// east (a north-south line) or to the south (an east-west line).
+// east (a north-south line) or to the south (an east-west line). Where the
+// change crosses zero in a signed survey the line is drawn with the zero
+// glyph, so the zero line stands out on its own.
 func (r *Renderer) contours(d *Data, v View) {
+	zero := int16(-1)
+	if d.Potential.Scale == Diverging {
+		zero = int16(d.Potential.Index(0))
+	}
+	crosses := func(a, b int16) bool { return zero >= 0 && (a < zero) != (b < zero) }
 	for row := range v.Height {
 		for c := range v.Width {
 			i := row*v.Width + c
@@ -59,16 +66,25 @@ func (r *Renderer) contours(d *Data, v View) {
 			if b < 0 {
 				continue
 			}
+			var g rune
 			if c+1 < v.Width {
 				if e := r.potAt(d, i+1); e >= 0 && e != b {
-					r.cells[i].over = glyphContourV
-					continue
+					g = glyphContourV
+					if crosses(b, e) {
+						g = glyphZeroLine
+					}
 				}
 			}
-			if row+1 < v.Height {
+			if g == 0 && row+1 < v.Height {
 				if s := r.potAt(d, i+v.Width); s >= 0 && s != b {
-					r.cells[i].over = glyphContourH
+					g = glyphContourH
+					if crosses(b, s) {
+						g = glyphZeroLine
+					}
 				}
+			}
+			if g != 0 {
+				r.cells[i].over = g
 			}
 		}
 	}

@@ -3,11 +3,12 @@
 # check that it renders offline with every image loaded and no script
 # error; keep a screenshot and a printed PDF as artefacts.
 #
-# Usage: survey/export/testdata/report_check.sh [ARTEFACT_DIR]
-# Run from anywhere inside the module. Exits 0 (skipped) when no Chromium
-# is installed, 1 when a check fails.
+# Usage: testdata/report_check.sh [ARTEFACT_DIR]
+# Run from anywhere. Artefacts (report.png, report.pdf, report.html) go to
+# ARTEFACT_DIR, default $TMPDIR/isofield-report-check. Exits 0 (skipped)
+# when no Chromium is installed, 1 when a check fails.
 #
-# Input: testdata/pad.csv beside this script, an invented survey: the
+# Input: survey/export/testdata/pad.csv, an invented survey: the
 # surface potential in mV of two point current sources in a homogeneous
 # half-space, V = rho*I/(2*pi*R) (image method; Telford, Geldart & Sheriff,
 # Applied Geophysics, 1990, ch. 8), rho*I = +200 and -150 V*m at (12, 9)
@@ -24,15 +25,15 @@ if [ -z "$chrome" ]; then
 	exit 0
 fi
 
-art=${1:-$(mktemp -d)}
+art=${1:-${TMPDIR:-/tmp}/isofield-report-check}
 mkdir -p "$art"
 work=$(mktemp -d)
 profile=$(mktemp -d)
 trap 'rm -rf "$work" "$profile"' EXIT
 
-cd "$here/../../.."
+cd "$here/.."
 go build -o "$work/isofield" ./cmd/isofield
-cp "$here/pad.csv" "$work/pad.csv"
+cp survey/export/testdata/pad.csv "$work/pad.csv"
 "$work/isofield" report --threshold 600 --suggest 5 -o "$work/report.html" "$work/pad.csv"
 
 # A page that loads the report in a frame and writes what it finds into

@@ -1,0 +1,32 @@
+// Package tui is isofield's terminal user interface, built on Bubble Tea,
+// Lip Gloss and Bubbles: a map of the gridded survey with a cursor readout
+// and legend, the ranked zones, the readings table with exclusions by hand,
+// a profile chart and the settings, all fed by pipeline.Run in the
+// background.
+//
+// Shape. Model is the root, with a state (loading, error, ready) and one
+// focused screen (map, zones, table, profile, settings) plus the help
+// overlay. Each screen is a child with a constructor, SetSize, Update
+// returning its own type, and View: mapPane (drawn by package mapview),
+// sidePane (readout and legend), zoneList, readingsTable, profileView and
+// settingsForm. The root handles the global keys, sizes every child and
+// routes other keys to the focused one. All keys live in one KeyMap, which
+// is also the help; all styles in one Styles, passed in.
+//
+// Data. A pipeline.Result becomes a scene once, when it arrives: map data
+// with per-node bands, zones, reading and suggestion marks, criterion and
+// cautions. Values under the cursor come from the fitted model (exact
+// between nodes), or from the nearest node when there is none.
+//
+// Background work. Every run of the pipeline (first load, a settings
+// change, a hand edit, a grown file in watch mode) is a tea.Cmd built from
+// a copy of the configuration, never the model. It carries a generation
+// number; results and progress of a replaced or cancelled run are dropped.
+// Progress comes through a channel read by a command that re-arms itself.
+// Hand edits and settings are saved through Options.Save in a command.
+//
+// Failure. Errors arrive as messages and are shown; a failed regrid keeps
+// the previous map. A panic in Update or in a background command is caught,
+// the UI quits through Bubble Tea's normal exit (restoring the terminal) and
+// Run returns an error wrapping ErrPanic with a one-line cause.
+package tui

@@ -1,0 +1,84 @@
+package tui
+
+import (
+	"context"
+	"math"
+	"strings"
+	"testing"
+
+	"isofield/survey/criteria"
+	"isofield/survey/pipeline"
+	"isofield/tui/mapview"
+)
+
+// pipelineModel runs the real pipeline on the fixture's readings and
+// returns a ready model showing the result.
+func pipelineModel(t *testing.T, cfg pipeline.Config) Model {
+	t.Helper()
+	cfg.Survey = fixtureResult().Survey
+	res, err := pipeline.Run(context.Background(), cfg, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := New(cfg, Options{Title: "site-a.csv"}, DefaultKeyMap(), testStyles(false))
+	m.gen = 1
+	m = update1(t, m, resultMsg{gen: 1, res: res})
+	return update1(t, m, resultMsg{gen: 1, res: res})
+}
+
+// TestSceneFromPipeline checks the wiring of a real result: the readout is
+// exact at a reading (the thin-plate spline interpolates its data), the
+// analysis' zones and suggestions reach the map, and the grounding preset
+// shows step voltages and its cautions.
+func TestSceneFromPipeline(t *testing.T) {
+	cfg := pipeline.Config{Spacing: 0.5, Suggest: 3, Criteria: criteria.Settings{
+		Preset: criteria.Grounding, FieldThreshold: 400, SoilRho: 100}}
+	m := pipelineModel(t, cfg)
+	sc := m.scene
+	r := sc.res.Survey.Readings[14] // (4, 4), a clean reading
+	pr := sc.probeAt(r.X, r.Y)
+	if math.Abs(pr.V-sc.res.Values[14]) > 1e-6*math.Abs(r.V) {
+		t.Errorf("V at reading %s = %g, want its value %g", r.ID, pr.V, sc.res.Values[14])
+	}
+	if !pr.HasStep || !(pr.StepValue > 0) {
+		t.Errorf("step voltage %g (shown %v), want a positive value for the grounding preset", pr.StepValue, pr.HasStep)
+	}
+	if len(sc.zones) == 0 || sc.zones[0].Rank != 1 || sc.zones[0].Label == "" {
+		t.Errorf("zones %+v, want ranked, labelled zones from the analysis", sc.zones)
+	}
+	n := 0
+	for _, p := range sc.data.Points {
+		if p.Kind == mapview.KindSuggestion {
+			n++
+		}
+	}
+	if n != len(sc.res.Analysis.Suggestions) || n == 0 {
+		t.Errorf("%d suggestions on the map, analysis has %d", n, len(sc.res.Analysis.Suggestions))
+	}
+	if !strings.Contains(m.messageLine(), "energised") {
+		t.Errorf("grounding message line %q lacks the caution", m.messageLine())
+	}
+	// At 80×24 the cautions have their own page, one ? further.
+	if help := press(t, m, "?", "?").helpOverlay(); !strings.Contains(help, "energised") {
+		t.Errorf("help's cautions page lacks the grounding cautions:\n%s", help)
+	}
+}
+
+// TestReadoutClosedForm compares the readout of the hand-made fixture
+// (grid filled from the closed form) with V = ρI/(2π√(r²+d²)) and its
+// field at grid nodes, where nearest-node reading is exact.
+func TestReadoutClosedForm(t *testing.T) {
+	m := readyModel(t, 80, 24, false)
+	for _, pt := range [][2]float64{{5, 5}, {20, 10}, {33.5, 2}} {
+		pr := m.scene.probeAt(pt[0], pt[1])
+		v, gx, gy := fixPotential(pt[0], pt[1])
+		if math.Abs(pr.V-v) > 1e-9 || math.Abs(pr.EX+gx) > 1e-9 || math.Abs(pr.EY+gy) > 1e-9 {
+			t.Errorf("probe at %v: V %g E (%g, %g), want %g (%g, %g)", pt, pr.V, pr.EX, pr.EY, v, -gx, -gy)
+		}
+	}
+	// E points away from the positive source: east of it, bearing 090°.
+	pr := m.scene.probeAt(14, 10)
+	if b, name := bearing(pr.EX, pr.EY); math.Abs(b-90) > 1e-6 || name != "E" {
+		t.Errorf("bearing east of the positive source %g° %s, want 90° E", b, name)
+	}
+}
