@@ -63,14 +63,14 @@ func (lf *localFit) sampleLOO(ds *dataset, plan localPlan, sample []int) (float6
 	ok := true
 	parallelRange(len(sample), func(lo, hi int) {
 		var sys smallSystem
-		var f, diag, scratch []float64
+		var f, diag, scratch, coefBuf []float64
 		var s float64
 		var c int
 		good := true
 		for _, j := range sample[lo:hi] {
 			p := &lf.patches[j]
 			m := int(p.hi - p.lo)
-			f, diag, scratch = grow(f, m), grow(diag, m), grow(scratch, m+3)
+			f, diag = grow(f, m), grow(diag, m)
 			for i, k := range lf.member[p.lo:p.hi] {
 				f[i] = ds.v[k]
 			}
@@ -80,9 +80,10 @@ func (lf *localFit) sampleLOO(ds *dataset, plan localPlan, sample []int) (float6
 				good = false
 				break
 			}
-			coef := append(scratch[:0:0], sys.rhs...)
+			coef := append(coefBuf[:0], sys.rhs...)
+			coefBuf = coef
 			sys.solve(coef)
-			sys.inverseDiag(diag, scratch)
+			scratch = sys.inverseDiag(diag, scratch)
 			for i := 0; i < m; i++ {
 				e := coef[i] / diag[i]
 				s += e * e

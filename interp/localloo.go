@@ -38,8 +38,8 @@ func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) 
 				failed.Store(true)
 				return
 			}
-			diag, scratch = grow(diag, m), grow(scratch, m+3)
-			sys.inverseDiag(diag, scratch)
+			diag = grow(diag, m)
+			scratch = sys.inverseDiag(diag, scratch)
 			for i := 0; i < m; i++ {
 				ej[int(p.lo)+i] = lf.coef[int(p.lo)+i] / diag[i]
 			}

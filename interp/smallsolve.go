@@ -85,15 +85,16 @@ func (s *smallSystem) solve(b []float64) {
 }
 
 // inverseDiag writes into dst the first len(dst) diagonal entries of the
-// inverse of the factorised matrix, one unit-vector solve each; e is a
-// scratch vector of length n.
-func (s *smallSystem) inverseDiag(dst, e []float64) {
+// inverse of the factorised matrix, computed whole by LAPACK's dgetri
+// (gonum's implementation). It destroys the factors; work is scratch,
+// grown as needed and returned for reuse.
+func (s *smallSystem) inverseDiag(dst, work []float64) []float64 {
+	var q [1]float64
+	lapack64.Getri(s.general(), s.piv, q[:], -1)
+	work = grow(work, max(int(q[0]), s.n))
+	lapack64.Getri(s.general(), s.piv, work, len(work))
 	for k := range dst {
-		for i := range e[:s.n] {
-			e[i] = 0
-		}
-		e[k] = 1
-		s.solve(e[:s.n])
-		dst[k] = e[k]
+		dst[k] = s.a[k*s.n+k]
 	}
+	return work
 }

@@ -39,10 +39,12 @@ func (m Model) askReason() (Model, tea.Cmd, bool) {
 		return m, nil, true
 	}
 	m.prompting, m.target = true, i
-	m.reason = m.reason.SetValue("").Focus()
+	m.reason.Reset()
 	m.reason.Prompt = m.promptText(i)
 	m.reason.Placeholder = "reason, then enter (esc: keep as is)"
-	return m, nil, true
+	m.reason = fitInput(m.reason, m.width)
+	cmd := m.reason.Focus()
+	return m, cmd, true
 }
 
 func (m Model) promptText(i int) string {
@@ -66,7 +68,7 @@ func (m Model) onPromptKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 		return m, tea.Quit
 	case key.Matches(msg, m.keys.Back):
 		m.prompting = false
-		m.reason = m.reason.Blur()
+		m.reason.Blur()
 		m.message = "nothing changed"
 		return m, nil
 	case msg.Type == tea.KeyEnter:
@@ -80,7 +82,7 @@ func (m Model) onPromptKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 // applyEdit records the exclusion or inclusion of the target reading.
 func (m Model) applyEdit() (tea.Model, tea.Cmd) {
 	m.prompting = false
-	m.reason = m.reason.Blur()
+	m.reason.Blur()
 	reason := strings.TrimSpace(m.reason.Value())
 	if reason == "" {
 		reason = "by hand"

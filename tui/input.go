@@ -1,137 +1,81 @@
 package tui
 
 import (
-	"strings"
+	"strconv"
 
-	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/bubbles/cursor"
+	"github.com/charmbracelet/bubbles/progress"
+	"github.com/charmbracelet/bubbles/textinput"
+	"github.com/charmbracelet/lipgloss"
+	"github.com/muesli/termenv"
 )
 
-// lineInput is a one-line text field: the reason prompt and the settings'
-// typed values. (Bubbles' textinput would pull a clipboard module this
-// build does not carry; this needs only the keys below.)
-type lineInput struct {
-	styles      Styles
-	Prompt      string
-	Placeholder string
-	limit       int
-	value       []rune
-	pos         int
-	focused     bool
-}
-
-func newLineInput(st Styles, limit int) lineInput { return lineInput{styles: st, limit: limit} }
-
-// Value returns the text typed.
-func (in lineInput) Value() string { return string(in.value) }
-
-// SetValue replaces the text and puts the cursor at its end.
-func (in lineInput) SetValue(s string) lineInput {
-	in.value = []rune(s)
-	if in.limit > 0 && len(in.value) > in.limit {
-		in.value = in.value[:in.limit]
+// newTextInput returns a Bubbles text input for the reason prompt and the
+// settings' typed values: at most limit characters, a steady cursor (no
+// blink timer, so frames change only on input), styled from st. Without
+// colour the cursor cannot be shown in reverse video, so it is drawn as
+// "_" at the end of the text or before the character it is on.
+func newTextInput(st Styles, limit int) textinput.Model {
+	in := textinput.New()
+	in.Prompt = ""
+	in.CharLimit = limit
+	in.PromptStyle = st.Label
+	in.TextStyle = st.Value
+	in.PlaceholderStyle = st.Faint
+	in.Cursor.Style = st.Value
+	in.Cursor.TextStyle = st.Value
+	in.Cursor.SetMode(cursor.CursorStatic)
+	if !st.Colour {
+		in.Cursor.Style = st.Value.Transform(monoCursor)
 	}
-	in.pos = len(in.value)
+	// Paste comes through the terminal (bracketed paste); ctrl+v would
+	// read a clipboard that a site laptop over SSH does not have.
+	in.KeyMap.Paste.SetEnabled(false)
 	return in
 }
 
-// Focus and Blur start and stop taking keys.
-func (in lineInput) Focus() lineInput { in.focused = true; return in }
-func (in lineInput) Blur() lineInput  { in.focused = false; return in }
-
-// Update edits the text: printable keys insert, backspace and delete
-// remove, ←/→, home/end and ctrl+a/ctrl+e move, ctrl+u clears.
-func (in lineInput) Update(msg tea.Msg) (lineInput, tea.Cmd) {
-	km, ok := msg.(tea.KeyMsg)
-	if !ok || !in.focused {
-		return in, nil
+// monoCursor draws the cursor cell without colour or reverse video.
+func monoCursor(s string) string {
+	if s == " " || s == "" {
+		return "_"
 	}
-	switch km.Type {
-	case tea.KeyRunes, tea.KeySpace:
-		r := km.Runes
-		if km.Type == tea.KeySpace {
-			r = []rune{' '}
-		}
-		if in.limit > 0 && len(in.value)+len(r) > in.limit {
-			return in, nil
-		}
-		in.value = append(in.value[:in.pos], append(append([]rune(nil), r...), in.value[in.pos:]...)...)
-		in.pos += len(r)
-	case tea.KeyBackspace:
-		if in.pos > 0 {
-			in.value = append(in.value[:in.pos-1], in.value[in.pos:]...)
-			in.pos--
-		}
-	case tea.KeyDelete:
-		if in.pos < len(in.value) {
-			in.value = append(in.value[:in.pos], in.value[in.pos+1:]...)
-		}
-	case tea.KeyLeft:
-		in.pos = max(in.pos-1, 0)
-	case tea.KeyRight:
-		in.pos = min(in.pos+1, len(in.value))
-	case tea.KeyHome, tea.KeyCtrlA:
-		in.pos = 0
-	case tea.KeyEnd, tea.KeyCtrlE:
-		in.pos = len(in.value)
-	case tea.KeyCtrlU:
-		in.value, in.pos = nil, 0
-	}
-	return in, nil
+	return "_" + s
 }
 
-// View draws the prompt, the text and a block cursor.
-func (in lineInput) View() string {
-	if len(in.value) == 0 && !in.focused {
-		return in.Prompt + in.styles.Faint.Render(in.Placeholder)
+// fitInput sets the input's visible width so that its prompt and text fit
+// w cells (the input scrolls sideways beyond that).
+func fitInput(in textinput.Model, w int) textinput.Model {
+	in.Width = max(w-lipgloss.Width(in.Prompt)-2, 8)
+	return in
+}
+
+// newProgress returns the Bubbles progress bar the UI draws runs with:
+// one solid colour (the accent), no animation (ViewAs draws the fraction
+// the last report gave), the percentage right of the bar.
+func newProgress(st Styles) progress.Model {
+	p := termenv.Ascii
+	dark := true
+	if st.Renderer != nil {
+		p, dark = st.Renderer.ColorProfile(), st.Renderer.HasDarkBackground()
 	}
-	var sb strings.Builder
-	sb.WriteString(in.Prompt)
-	sb.WriteString(string(in.value[:in.pos]))
-	cur := " "
-	if in.pos < len(in.value) {
-		cur = string(in.value[in.pos])
-	}
-	if in.focused {
-		cur = in.styles.Selected.Render(cur)
-		if !in.styles.Colour {
-			cur = "_"
-			if in.pos < len(in.value) {
-				cur = "_" + string(in.value[in.pos])
-			}
+	pick := func(c lipgloss.AdaptiveColor) string {
+		if dark {
+			return c.Dark
 		}
+		return c.Light
 	}
-	sb.WriteString(cur)
-	if in.pos < len(in.value) {
-		sb.WriteString(string(in.value[in.pos+1:]))
-	}
-	if len(in.value) == 0 && in.Placeholder != "" {
-		sb.WriteString(in.styles.Faint.Render(in.Placeholder))
-	}
-	return sb.String()
+	bar := progress.New(progress.WithColorProfile(p), progress.WithSolidFill(pick(st.Accent)),
+		progress.WithFillCharacters('█', '░'))
+	bar.EmptyColor = pick(st.Dim)
+	bar.PercentFormat = " %3.0f%%"
+	return bar
 }
 
-// progressBar draws frac (0..1) as a bar width cells wide with its
-// percentage.
-func progressBar(st Styles, width int, frac float64) string {
-	frac = min(max(frac, 0), 1)
-	w := max(width-5, 4)
-	full := int(frac*float64(w) + 0.5)
-	bar := st.PanelTitle.Render(strings.Repeat("█", full)) + st.Faint.Render(strings.Repeat("░", w-full))
-	return bar + " " + padLeft(int(frac*100+0.5), 3) + "%"
+// progressView draws frac (0..1) as a bar width cells wide, percentage
+// included.
+func progressView(bar progress.Model, width int, frac float64) string {
+	bar.Width = max(width, 9)
+	return bar.ViewAs(min(max(frac, 0), 1))
 }
 
-func padLeft(n, w int) string {
-	s := strings.Repeat(" ", w) + itoa(n)
-	return s[len(s)-w:]
-}
-
-func itoa(n int) string {
-	if n == 0 {
-		return "0"
-	}
-	var b []byte
-	for ; n > 0; n /= 10 {
-		b = append([]byte{byte('0' + n%10)}, b...)
-	}
-	return string(b)
-}
+func itoa(n int) string { return strconv.Itoa(n) }

@@ -40,6 +40,7 @@ func (m Model) resize(w, h int) Model {
 	m.table = m.table.SetSize(m.width, body)
 	m.profile = m.profile.SetSize(m.width, body)
 	m.settings = m.settings.SetSize(m.width, body)
+	m.reason = fitInput(m.reason, m.width)
 	m.help.Width = m.width - 2 // bubbles' help can overrun its width by a little
 	return m
 }
@@ -55,7 +56,7 @@ func (m Model) View() (out string) {
 	var body string
 	switch m.state {
 	case stateLoading:
-		body = m.centre(m.styles.PanelTitle.Render("isofield") + "\n\ngridding the survey…\n" + progressBar(m.styles, max(m.width/3, 12), m.frac))
+		body = m.centre(m.styles.PanelTitle.Render("isofield") + "\n\ngridding the survey…\n" + progressView(m.bar, max(m.width/3, 12), m.frac))
 	case stateError:
 		body = m.centre(m.styles.Error.Render("could not open the survey") + "\n\n" + wrapJoin(m.err.Error(), m.width-4) + "\n\nq quits")
 	default:
@@ -82,7 +83,7 @@ func (m Model) readyBody() string {
 	case focusSettings:
 		return m.settings.View()
 	case focusProfile:
-		return m.profile.View(m.scene, m.marks[0], m.marks[1])
+		return m.profile.View()
 	}
 	x, y := m.mapPane.Cursor()
 	pr := m.scene.probeAt(x, y)
@@ -177,7 +178,7 @@ func (m Model) messageLine() string {
 	case m.prompting:
 		return truncate(m.reason.View(), m.width)
 	case m.running:
-		return truncate(progressBar(m.styles, max(m.width/3, 12), m.frac)+" "+m.stage+"  (c cancels)", m.width)
+		return truncate(progressView(m.bar, max(m.width/3, 12), m.frac)+" "+m.stage+"  (c cancels)", m.width)
 	case m.message != "":
 		return truncate(st.Warn.Render(m.message), m.width)
 	case m.cfg.Criteria.Name() == criteria.Grounding:

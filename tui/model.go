@@ -7,6 +7,8 @@ import (
 
 	"github.com/charmbracelet/bubbles/help"
 	"github.com/charmbracelet/bubbles/key"
+	"github.com/charmbracelet/bubbles/progress"
+	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"isofield/survey/pipeline"
@@ -52,6 +54,7 @@ type Model struct {
 	cancel  context.CancelFunc
 	stage   string
 	frac    float64
+	bar     progress.Model
 
 	mapPane  mapPane
 	side     sidePane
@@ -69,7 +72,7 @@ type Model struct {
 	// the exclusion prompt
 	prompting bool
 	target    int
-	reason    lineInput
+	reason    textinput.Model
 
 	message  string
 	watch    watchStamp
@@ -90,7 +93,8 @@ func New(cfg pipeline.Config, opt Options, keys KeyMap, st Styles) Model {
 		table:    newReadingsTable(keys, st),
 		profile:  newProfileView(st),
 		settings: newSettingsForm(keys, st).SetConfig(cfg),
-		reason:   newLineInput(st, 120),
+		reason:   newTextInput(st, 120),
+		bar:      newProgress(st),
 	}
 	return m.resize(80, 24)
 }
@@ -212,6 +216,7 @@ func (m Model) onResult(msg resultMsg) (tea.Model, tea.Cmd) {
 	m.zones = m.zones.SetZones(m.scene.zones, m.scene.unit)
 	m.table = m.table.SetResult(msg.res)
 	m.settings = m.settings.SetConfig(m.cfg)
+	m.profile = m.profile.Set(m.scene, m.marks[0], m.marks[1])
 	if msg.preview {
 		return m.regrid("full grid")
 	}
@@ -332,6 +337,7 @@ func (m Model) onScreenKey(msg tea.KeyMsg) (Model, tea.Cmd, bool) {
 		m.message = fmt.Sprintf("mark %c at %s, %s", 'A'+rune(m.nextMark), fixed(x), fixed(y))
 		m.nextMark = 1 - m.nextMark
 		m.mapPane.view.MarkA, m.mapPane.view.MarkB = m.marks[0], m.marks[1]
+		m.profile = m.profile.Set(m.scene, m.marks[0], m.marks[1])
 	case key.Matches(msg, k.Exclude) && (m.focus == focusMap || m.focus == focusTable):
 		return m.askReason()
 	case key.Matches(msg, k.Export):

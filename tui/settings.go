@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
+	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"isofield/interp"
@@ -32,19 +33,23 @@ type settingsForm struct {
 	cfg           pipeline.Config
 	cursor        int
 	editing       bool
-	input         lineInput
+	input         textinput.Model
 	err           string
 	width, height int
 }
 
+// settingsLabelWidth is the width of the settings' label column.
+const settingsLabelWidth = 32
+
 func newSettingsForm(keys KeyMap, st Styles) settingsForm {
-	in := newLineInput(st, 32)
+	in := newTextInput(st, 32)
 	in.Prompt = "> "
 	return settingsForm{keys: keys, styles: st, input: in}
 }
 
 func (f settingsForm) SetSize(w, h int) settingsForm {
 	f.width, f.height = w, h
+	f.input = fitInput(f.input, w-settingsLabelWidth-3)
 	return f
 }
 
@@ -98,8 +103,9 @@ func (f settingsForm) Update(msg tea.Msg) (settingsForm, tea.Cmd) {
 	case key.Matches(km, f.keys.Apply):
 		if cur.choices == nil {
 			f.editing, f.err = true, ""
-			f.input = f.input.SetValue(cur.get(&f.cfg)).Focus()
-			return f, nil
+			f.input.SetValue(cur.get(&f.cfg))
+			cmd := f.input.Focus()
+			return f, cmd
 		}
 	}
 	return f, nil
@@ -110,11 +116,11 @@ func (f settingsForm) updateEditing(msg tea.Msg) (settingsForm, tea.Cmd) {
 		switch {
 		case key.Matches(km, f.keys.Back):
 			f.editing = false
-			f.input = f.input.Blur()
+			f.input.Blur()
 			return f, nil
 		case key.Matches(km, f.keys.Apply):
 			f.editing = false
-			f.input = f.input.Blur()
+			f.input.Blur()
 			return f.commit(f.visible()[f.cursor], f.input.Value())
 		}
 	}
@@ -169,7 +175,7 @@ func (f settingsForm) View() string {
 		if i == f.cursor {
 			mark = "▶ "
 		}
-		l := fmt.Sprintf("%s%-32s %s", mark, s.label, val)
+		l := fmt.Sprintf("%s%-*s %s", mark, settingsLabelWidth, s.label, val)
 		if i == f.cursor && !f.editing {
 			l = st.Selected.Render(l)
 		}

@@ -15,6 +15,9 @@ type Styles struct {
 	Renderer *lipgloss.Renderer
 	Colour   bool
 
+	// Accent and Dim are the two colours the progress bar is drawn in.
+	Accent, Dim lipgloss.AdaptiveColor
+
 	Status, StatusBusy   lipgloss.Style
 	Panel, PanelTitle    lipgloss.Style
 	Label, Value, Faint  lipgloss.Style
@@ -36,7 +39,7 @@ func DefaultStyles(r *lipgloss.Renderer) Styles {
 	dim := lipgloss.AdaptiveColor{Light: "#6a6a6a", Dark: "#9a9a9a"}
 	accent := lipgloss.AdaptiveColor{Light: "#542788", Dark: "#b2abd2"} // PuOr purple arm
 	warm := lipgloss.AdaptiveColor{Light: "#b35806", Dark: "#fdb863"}   // PuOr orange arm
-	s := Styles{Renderer: r, Colour: r.ColorProfile() != termenv.Ascii}
+	s := Styles{Renderer: r, Colour: r.ColorProfile() != termenv.Ascii, Accent: accent, Dim: dim}
 	s.Status = r.NewStyle().Bold(true).Foreground(ink).Background(lipgloss.AdaptiveColor{Light: "#d8daeb", Dark: "#2d004b"})
 	s.StatusBusy = s.Status.Foreground(warm)
 	s.Panel = r.NewStyle().Border(lipgloss.NormalBorder()).BorderForeground(dim).Padding(0, 1)

@@ -53,18 +53,25 @@ func press(t testing.TB, m Model, keys ...string) Model {
 func TestViewGolden(t *testing.T) {
 	screens := []struct {
 		name string
+		prep func(testing.TB, Model) Model // before the keys (nil: none)
 		keys []string
 	}{
-		{"map", nil},
-		{"layers", []string{"2", "5", "7"}},
-		{"fine", []string{"f"}},
-		{"zones", []string{"z", "down", "enter"}},
-		{"table", []string{"t", "o", "o", "o", "o", "o", "r"}},
-		{"profile", []string{"h", "h", "h", "h", "h", "h", "h", "h", "m", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "l", "m", "p"}},
-		{"settings", []string{"s", "down"}},
-		{"help", []string{"?"}},
-		{"cautions", []string{"?", "?"}},
-		{"prompt", []string{"t", "x", "w", "e", "t"}},
+		{"map", nil, nil},
+		{"layers", nil, []string{"2", "5", "7"}},
+		{"fine", nil, []string{"f"}},
+		{"zones", nil, []string{"z", "down", "enter"}},
+		{"table", nil, []string{"t", "o", "o", "o", "o", "o", "r"}},
+		// Past both sources and over the excluded reading P2-8 at (32, 8),
+		// which goes on the row of readings left out.
+		{"profile", withMarks([2]float64{8, 11}, [2]float64{36, 7.5}), []string{"p"}},
+		{"profile_unmarked", nil, []string{"p"}},
+		{"settings", nil, []string{"s", "down"}},
+		{"settings_typing", nil, []string{"s", "down", "down", "enter", "backspace", "5"}},
+		{"help", nil, []string{"?"}},
+		{"cautions", nil, []string{"?", "?"}},
+		{"prompt", nil, []string{"t", "x", "w", "e", "t"}},
+		{"running", running("grid", 0.62), nil},
+		{"loading", loading(0.35), nil},
 	}
 	for _, size := range [][2]int{{80, 24}, {120, 40}} {
 		for _, colour := range []bool{false, true} {
@@ -72,6 +79,9 @@ func TestViewGolden(t *testing.T) {
 				name := fmt.Sprintf("%s_%dx%d_%s", sc.name, size[0], size[1], map[bool]string{false: "mono", true: "colour"}[colour])
 				t.Run(name, func(t *testing.T) {
 					m := readyModel(t, size[0], size[1], colour)
+					if sc.prep != nil {
+						m = sc.prep(t, m)
+					}
 					m = press(t, m, sc.keys...)
 					out := m.View()
 					checkFits(t, out, size[0], size[1])
@@ -79,6 +89,32 @@ func TestViewGolden(t *testing.T) {
 				})
 			}
 		}
+	}
+}
+
+// withMarks sets marks A and B as the m key would.
+func withMarks(a, b [2]float64) func(testing.TB, Model) Model {
+	return func(t testing.TB, m Model) Model {
+		m.mapPane = m.mapPane.MoveTo(a[0], a[1])
+		m = press(t, m, "m")
+		m.mapPane = m.mapPane.MoveTo(b[0], b[1])
+		return press(t, m, "m")
+	}
+}
+
+// running shows a regrid in progress at stage and frac.
+func running(stage string, frac float64) func(testing.TB, Model) Model {
+	return func(_ testing.TB, m Model) Model {
+		m.running, m.stage, m.frac = true, stage, frac
+		return m
+	}
+}
+
+// loading shows the first run in progress.
+func loading(frac float64) func(testing.TB, Model) Model {
+	return func(_ testing.TB, m Model) Model {
+		m.state, m.scene, m.running, m.stage, m.frac = stateLoading, nil, true, "first look", frac
+		return m
 	}
 }
 

@@ -31,7 +31,7 @@ func runCheck(e *env, args []string) error {
 	sf.register(fs)
 	fs.BoolVar(&strict, "strict", false, "exit with status 3 when any reading is suspect")
 	fs.BoolVar(&showLog, "log", false, "print every correction and status change after the report")
-	if err := sf.parse(fs, flagsFirst(fs, args)); err != nil {
+	if err := sf.parse(fs, args); err != nil {
 		return err
 	}
 	s, q, notes, err := checkSurvey(fs, &sf)

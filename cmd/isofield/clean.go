@@ -29,7 +29,7 @@ func runClean(e *env, args []string) error {
 	sf.register(fs)
 	fs.StringVar(&out, "o", "", "write to `FILE` (atomically) instead of standard output")
 	fs.BoolVar(&force, "force", false, "overwrite an existing output file")
-	if err := sf.parse(fs, flagsFirst(fs, args)); err != nil {
+	if err := sf.parse(fs, args); err != nil {
 		return err
 	}
 	s, q, _, err := checkSurvey(fs, &sf)

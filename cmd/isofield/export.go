@@ -7,7 +7,6 @@ import (
 	"time"
 
 	"isofield/survey/export"
-	"isofield/survey/pipeline"
 )
 
 const exportSummary = `Check, grid and analyse the survey files, then write every export into
@@ -71,7 +70,7 @@ func runExport(e *env, args []string) error {
 		return fmt.Errorf("export: %w", err)
 	}
 	ctx := context.Background()
-	res, err := pipeline.Run(ctx, sf.cfg, nil)
+	res, err := sf.run(ctx, fs)
 	if err != nil {
 		return err
 	}

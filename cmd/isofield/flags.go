@@ -1,15 +1,19 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"flag"
 	"fmt"
 	"io"
+	"os"
+	"slices"
 	"strconv"
 	"strings"
 
 	"isofield/interp"
 	"isofield/survey/pipeline"
+	"isofield/survey/session"
 )
 
 // surveyFlags are the flags shared by every command that reads and grids
@@ -61,6 +65,9 @@ func (f *surveyFlags) parse(fs *flag.FlagSet, args []string) error {
 		return err
 	}
 	f.cfg.Files = files
+	if err := f.restoreSettings(fs, args); err != nil {
+		return err
+	}
 	if err := f.fitOptions(); err != nil {
 		return usageError{err}
 	}
@@ -145,4 +152,93 @@ func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
 		pos = append(pos, rest[0])
 		args = rest[1:]
 	}
+}
+
+// restoreSettings starts the criteria, fit and grid settings from the
+// session file beside the first input (as the terminal UI saved them), then
+// lets every flag given on the command line win. The QA settings and hand
+// edits of the session are applied by applySession.
+//
+// It parses args a second time into a fresh flag set whose fields hold the
+// session's values: flags not given keep them, flags given overwrite them.
+func (f *surveyFlags) restoreSettings(fs *flag.FlagSet, args []string) error {
+	path, explicit := sessionPath(fs, f.cfg.Files)
+	if path == "" {
+		return nil
+	}
+	sess, err := session.Load(path)
+	if err != nil {
+		if !explicit && errors.Is(err, os.ErrNotExist) {
+			return nil
+		}
+		return fmt.Errorf("session: %w", err)
+	}
+	var again surveyFlags
+	fs2 := flag.NewFlagSet(fs.Name(), flag.ContinueOnError)
+	fs2.SetOutput(io.Discard)
+	again.register(fs2)
+	// The command's own flags (-o, --force, ...) are parsed and dropped.
+	fs.VisitAll(func(fl *flag.Flag) {
+		if fs2.Lookup(fl.Name) == nil {
+			fs2.Var(ignored{isBool: isBoolFlag(fl)}, fl.Name, "")
+		}
+	})
+	if err := sess.Settings.Apply(&again.cfg); err != nil {
+		return fmt.Errorf("session %s: %w", path, err)
+	}
+	fit := sess.Settings.Fit
+	if fit.Kernel != "" {
+		again.kernel = fit.Kernel
+	}
+	if fit.Method != "" {
+		again.method = fit.Method
+	}
+	again.smoothing = autoText(fit.AutoSmoothing, fit.Smoothing, again.smoothing)
+	again.shape = autoText(fit.AutoShape, fit.Shape, again.shape)
+	if _, err := parseInterspersed(fs2, args); err != nil {
+		return err
+	}
+	f.cfg.Criteria = again.cfg.Criteria
+	f.cfg.Criteria.Conditions = slices.Compact(slices.Sorted(slices.Values(f.cfg.Criteria.Conditions)))
+	f.cfg.Spacing, f.cfg.MaskDistance, f.cfg.Interval = again.cfg.Spacing, again.cfg.MaskDistance, again.cfg.Interval
+	f.cfg.MaxNodes, f.cfg.UseSuspects = again.cfg.MaxNodes, again.cfg.UseSuspects
+	f.kernel, f.method, f.smoothing, f.shape = again.kernel, again.method, again.smoothing, again.shape
+	return nil
+}
+
+// autoText writes a fit setting back as its flag text: "auto", the value,
+// or def when the value is unset.
+func autoText(auto bool, v float64, def string) string {
+	switch {
+	case auto:
+		return "auto"
+	case v > 0:
+		return strconv.FormatFloat(v, 'g', -1, 64)
+	}
+	return def
+}
+
+// run applies the session's QA settings and hand edits and runs the
+// pipeline, for the commands that grid and analyse.
+func (f *surveyFlags) run(ctx context.Context, fs *flag.FlagSet) (*pipeline.Result, error) {
+	if err := checkQAFlags(f.cfg.QA); err != nil {
+		return nil, err
+	}
+	if _, _, err := applySession(fs, &f.cfg); err != nil {
+		return nil, err
+	}
+	return pipeline.Run(ctx, f.cfg, nil)
+}
+
+// ignored is a flag value that accepts anything and keeps nothing.
+type ignored struct{ isBool bool }
+
+func (ignored) String() string     { return "" }
+func (ignored) Set(string) error   { return nil }
+func (i ignored) IsBoolFlag() bool { return i.isBool }
+
+// isBoolFlag reports whether fl is a boolean flag (given without a value).
+func isBoolFlag(fl *flag.Flag) bool {
+	b, ok := fl.Value.(interface{ IsBoolFlag() bool })
+	return ok && b.IsBoolFlag()
 }

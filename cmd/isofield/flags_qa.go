@@ -102,37 +102,6 @@ func applySession(fs *flag.FlagSet, cfg *pipeline.Config) (*session.File, []stri
 	return sf, notes, nil
 }
 
-// flagsFirst reorders a command line so that flags written after the
-// files ("isofield clean a.csv b.csv -o out.csv") are parsed too: flags
-// (with the values of non-boolean ones) first, then "--", then the files
-// in their order. Everything after a "--" stays a file.
-func flagsFirst(fs *flag.FlagSet, args []string) []string {
-	var flags, files []string
-	for i := 0; i < len(args); i++ {
-		a := args[i]
-		switch {
-		case a == "--":
-			files = append(files, args[i+1:]...)
-			i = len(args)
-		case len(a) > 1 && a[0] == '-':
-			flags = append(flags, a)
-			name, _, hasValue := strings.Cut(strings.TrimLeft(a, "-"), "=")
-			if f := fs.Lookup(name); f != nil && !hasValue && !isBoolFlag(f) && i+1 < len(args) {
-				i++
-				flags = append(flags, args[i])
-			}
-		default:
-			files = append(files, a)
-		}
-	}
-	return append(append(flags, "--"), files...)
-}
-
-func isBoolFlag(f *flag.Flag) bool {
-	b, ok := f.Value.(interface{ IsBoolFlag() bool })
-	return ok && b.IsBoolFlag()
-}
-
 // sessionPath returns the session file of a parsed command line ("" with
 // --no-session) and whether --session named it.
 func sessionPath(fs *flag.FlagSet, files []string) (string, bool) {

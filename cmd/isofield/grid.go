@@ -4,7 +4,6 @@ import (
 	"context"
 	"fmt"
 	"io"
-	"math"
 
 	"isofield/survey/export"
 	"isofield/survey/fileout"
@@ -37,56 +36,22 @@ func runGrid(e *env, args []string) error {
 	if len(sf.cfg.Files) == 0 {
 		return usageError{fmt.Errorf("grid: no input file (see isofield grid --help)")}
 	}
-	res, err := pipeline.Run(context.Background(), sf.cfg, nil)
+	res, err := sf.run(context.Background(), fs)
 	if err != nil {
 		return err
 	}
-	write := func(w io.Writer) error { return writeGrid(w, res, sf.cfg) }
+	write := func(w io.Writer) error { return writeGrid(w, res) }
 	if out == "" {
 		return write(e.stdout)
 	}
 	return fileout.Write(out, fileout.Options{Force: force, Inputs: sf.cfg.Files}, write)
 }
 
-// writeGrid writes the grid CSV of a pipeline result.
-func writeGrid(w io.Writer, res *pipeline.Result, cfg pipeline.Config) error {
-	g := res.Grid
-	flagged := make([]bool, g.Len())
-	if a := res.Analysis; a != nil && len(a.Flagged) == g.Len() {
-		// The preset's criterion: field, potential limits, step and touch.
-		flagged = a.Flagged
-	} else if t := cfg.Criteria.FieldThreshold; t > 0 {
-		for k := range flagged {
-			if !g.Mask[k] && math.Hypot(g.GX[k], g.GY[k]) >= t {
-				flagged[k] = true
-			}
-		}
-	}
-	return export.WriteGridCSV(w, g, res.Survey.Unit.String(), flagged, gridColumns(res))
-}
-
-// gridColumns returns the columns appended after the fixed ones: band (the
-// equipotential band of the node, see contour.Band; empty where masked),
-// and with the grounding preset step_U (step voltage) and, when a GPR is
-// given, touch_U (touch voltage, empty beyond reach of the structure).
-func gridColumns(res *pipeline.Result) []export.Column {
-	a := res.Analysis
-	if a == nil || len(a.NodeBand) != res.Grid.Len() {
-		return nil
-	}
-	band := make([]float64, len(a.NodeBand))
-	for k, b := range a.NodeBand {
-		band[k] = float64(b)
-		if b < 0 {
-			band[k] = math.NaN()
-		}
-	}
-	cols := []export.Column{{Name: "band", Values: band}}
-	if a.Step != nil {
-		cols = append(cols, export.Column{Name: "step_" + a.Unit, Values: a.Step})
-	}
-	if a.Touch != nil {
-		cols = append(cols, export.Column{Name: "touch_" + a.Unit, Values: a.Touch})
-	}
-	return cols
+// writeGrid writes the grid CSV of a pipeline result: the fixed columns,
+// flagged by the preset's criterion (field, potential limits, step, touch),
+// then band, step_U and touch_U (grounding) and lat_deg, lon_deg (surveys
+// read from latitude and longitude).
+func writeGrid(w io.Writer, res *pipeline.Result) error {
+	flagged, extra := export.GridColumns(res)
+	return export.WriteGridCSV(w, res.Grid, res.Survey.Unit.String(), flagged, extra)
 }

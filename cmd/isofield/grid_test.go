@@ -44,7 +44,7 @@ func TestGridHalfSpace(t *testing.T) {
 		t.Fatalf("header = %q, want %q", got, wantHeader)
 	}
 	var n int
-	var maxErrV, maxErrE float64
+	var maxErrV, maxErrE, sumV2, sumE2 float64
 	for _, r := range rows[1:] {
 		x, y := num(t, r[0]), num(t, r[1])
 		if x < 5 || x > 55 || y < 5 || y > 35 || r[2] == "" {
@@ -52,8 +52,10 @@ func TestGridHalfSpace(t *testing.T) {
 		}
 		want := 1000 * demo.Potential(rho, src, x, y)
 		ex, ey := demo.Field(rho, src, x, y)
-		maxErrV = max(maxErrV, math.Abs(num(t, r[2])-want))
-		maxErrE = max(maxErrE, math.Hypot(num(t, r[3])-1000*ex, num(t, r[4])-1000*ey))
+		dv := math.Abs(num(t, r[2]) - want)
+		de := math.Hypot(num(t, r[3])-1000*ex, num(t, r[4])-1000*ey)
+		maxErrV, maxErrE = max(maxErrV, dv), max(maxErrE, de)
+		sumV2, sumE2 = sumV2+dv*dv, sumE2+de*de
 		f := num(t, r[5])
 		if flagged := r[6] == "1"; flagged != (f >= 50) {
 			t.Errorf("node (%g, %g): field %g with threshold 50 but flagged = %s", x, y, f, r[6])
@@ -64,14 +66,26 @@ func TestGridHalfSpace(t *testing.T) {
 		t.Fatalf("only %d interior nodes compared", n)
 	}
 	// Tolerances: over the compared area the potential spans about 930 mV
-	// and the field reaches about 77 mV/m (closed form). We demand 1 % of
-	// the span and 5 % of the peak field from 900 scattered readings (mean
-	// spacing ≈ 1.6 m, sources 4-5 m deep).
-	if maxErrV > 9 {
-		t.Errorf("max potential error %.3g mV over %d interior nodes, want ≤ 9", maxErrV, n)
-	}
-	if maxErrE > 3.8 {
-		t.Errorf("max field error %.3g mV/m over %d interior nodes, want ≤ 3.8", maxErrE, n)
+	// and the field reaches about 77 mV/m (closed form). Readings are
+	// scattered at random (mean spacing ≈ 1.6 m), so the worst node sits in
+	// a gap: at the main peak the nearest reading is 1.8 m away, where the
+	// curvature ρI/(2πd³) ≈ 50 mV/m² allows an error of order curvature ×
+	// gap² / 8 ≈ 20 mV. We demand RMS errors of 0.5 % of the span and 3 % of
+	// the peak field, and worst-case errors of 3 % and 25 % of them.
+	rmsV, rmsE := math.Sqrt(sumV2/float64(n)), math.Sqrt(sumE2/float64(n))
+	t.Logf("%d nodes: potential error RMS %.3g max %.3g mV; field error RMS %.3g max %.3g mV/m", n, rmsV, maxErrV, rmsE, maxErrE)
+	for _, c := range []struct {
+		what      string
+		got, want float64
+	}{
+		{"potential RMS error (mV)", rmsV, 4.6},
+		{"potential max error (mV)", maxErrV, 28},
+		{"field RMS error (mV/m)", rmsE, 2.3},
+		{"field max error (mV/m)", maxErrE, 19},
+	} {
+		if c.got > c.want {
+			t.Errorf("%s = %.3g over %d interior nodes, want ≤ %g", c.what, c.got, n, c.want)
+		}
 	}
 }
 

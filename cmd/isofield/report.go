@@ -7,7 +7,6 @@ import (
 
 	"isofield/survey/export"
 	"isofield/survey/fileout"
-	"isofield/survey/pipeline"
 )
 
 const reportSummary = `Check, grid and analyse the survey files and write the survey report: one
@@ -45,7 +44,7 @@ func runReport(e *env, args []string) error {
 		return fmt.Errorf("%s: %w", out, err)
 	}
 	ctx := context.Background()
-	res, err := pipeline.Run(ctx, sf.cfg, nil)
+	res, err := sf.run(ctx, fs)
 	if err != nil {
 		return err
 	}

@@ -10,7 +10,6 @@ import (
 
 	"isofield/survey/analysis"
 	"isofield/survey/fileout"
-	"isofield/survey/pipeline"
 )
 
 const suggestSummary = `Grid the readings and suggest where to take more: points where the field
@@ -37,7 +36,7 @@ func runSuggest(e *env, args []string) error {
 	if sf.cfg.Suggest < 1 {
 		return usageError{fmt.Errorf("-n %d: want at least 1", sf.cfg.Suggest)}
 	}
-	res, err := pipeline.Run(context.Background(), sf.cfg, nil)
+	res, err := sf.run(context.Background(), fs)
 	if err != nil {
 		return err
 	}

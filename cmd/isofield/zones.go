@@ -34,7 +34,7 @@ func runZones(e *env, args []string) error {
 	if len(sf.cfg.Files) == 0 {
 		return usageError{fmt.Errorf("zones: no input file (see isofield zones --help)")}
 	}
-	res, err := pipeline.Run(context.Background(), sf.cfg, nil)
+	res, err := sf.run(context.Background(), fs)
 	if err != nil {
 		return err
 	}

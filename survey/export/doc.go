@@ -12,7 +12,8 @@
 //	x_m,y_m,potential_U,ex_U_per_m,ey_U_per_m,field_U_per_m,flagged
 //
 // with U the survey's unit (V or mV), then any extra columns (GridColumns:
-// band, and step_U and touch_U for the grounding preset). One row per node
+// band; step_U and touch_U for the grounding preset; lat_deg and lon_deg
+// for surveys read from latitude and longitude). One row per node
 // of the interp.Grid in index order: row j = 0 (the southern edge) first,
 // x growing fastest. Numbers are written in the shortest form that reads
 // back to the same float64, so seven-digit northings keep every digit.

@@ -1,6 +1,7 @@
 package qa
 
 import (
+	"context"
 	"errors"
 	"math"
 	"strings"
@@ -417,5 +418,24 @@ func TestUse(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestRunProgress: the spike fit reports progress, and a cancelled context
+// stops the run with its error.
+func TestRunProgress(t *testing.T) {
+	sy := synthetic{nx: 8, ny: 8}
+	s, _ := sy.build(1)
+	calls := 0
+	if _, err := RunProgress(context.Background(), s, Settings{}, nil, func(done, total int) { calls++ }); err != nil {
+		t.Fatal(err)
+	}
+	if calls == 0 {
+		t.Errorf("no progress reported")
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := RunContext(ctx, s, Settings{}, nil); !errors.Is(err, context.Canceled) {
+		t.Errorf("cancelled run: err = %v, want context.Canceled", err)
 	}
 }

@@ -15,7 +15,8 @@ type checker struct {
 	set Settings // defaults filled in
 	res *Result
 	// hand is true for readings excluded by hand at the end of the edits.
-	hand []bool
+	hand     []bool
+	progress func(done, total int) // of the spike fits; may be nil
 }
 
 // Run checks and corrects the survey's readings with the given settings
@@ -27,6 +28,14 @@ func Run(s *survey.Survey, set Settings, edits []Edit) (*Result, error) {
 
 // RunContext is Run honouring ctx during the spike fit.
 func RunContext(ctx context.Context, s *survey.Survey, set Settings, edits []Edit) (*Result, error) {
+	return RunProgress(ctx, s, set, edits, nil)
+}
+
+// RunProgress is RunContext reporting the progress of the spike fits, the
+// slow part on large surveys: progress, if not nil, is called from any
+// goroutine with the work done and the total of the current fit, in
+// arbitrary units (as interp.Options.Progress).
+func RunProgress(ctx context.Context, s *survey.Survey, set Settings, edits []Edit, progress func(done, total int)) (*Result, error) {
 	if s == nil {
 		return nil, errors.New("qa: no survey")
 	}
@@ -34,6 +43,7 @@ func RunContext(ctx context.Context, s *survey.Survey, set Settings, edits []Edi
 		return nil, fmt.Errorf("qa settings: %w", err)
 	}
 	c := newChecker(s, set.effective(s.Unit))
+	c.progress = progress
 	plan := c.resolveEdits(edits)
 	if err := c.convertReferences(); err != nil {
 		return nil, err
