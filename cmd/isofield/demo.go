@@ -31,4 +31,3 @@ func runDemo(e *env, args []string) error {
 	}
 	return fileout.Write(out, fileout.Options{Force: force}, write)
 }
-
