@@ -274,3 +274,13 @@ func TestTranslationInvariant(t *testing.T) {
 		}
 	}
 }
+
+// TestLocalFallsBack: forcing the local method on a handful of readings
+// uses the global fit and says so.
+func TestLocalFallsBack(t *testing.T) {
+	xs, ys, vs := scattered(2, 10, 0, 0, 10, 10, franke)
+	m := mustFit(t, xs, ys, vs, Options{Method: Local})
+	if info := m.Info(); info.Method != Global || len(info.Warnings) == 0 {
+		t.Errorf("Info = %+v, want the global method and a warning", info)
+	}
+}

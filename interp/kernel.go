@@ -92,12 +92,24 @@ func ParseKernel(s string) (Kernel, error) {
 // value type so the hot loops can copy it onto the stack.
 type basis struct {
 	k    Kernel
-	eps  float64 // shape ε (scaled coordinates)
-	eps2 float64 // ε²
+	eps  float64   // shape ε (scaled coordinates)
+	eps2 float64   // ε²
+	lt   *logTable // for the thin-plate spline's logarithm
 }
 
 func newBasis(k Kernel, eps float64) basis {
-	return basis{k: k, eps: eps, eps2: eps * eps}
+	b := basis{k: k, eps: eps, eps2: eps * eps}
+	if k == ThinPlate {
+		b.lt = newLogTable()
+	}
+	return b
+}
+
+// scaled returns the basis for coordinates divided by f (a patch's
+// radius): the shape becomes ε·f; the log table is shared.
+func (b basis) scaled(f float64) basis {
+	e := b.eps * f
+	return basis{k: b.k, eps: e, eps2: e * e, lt: b.lt}
 }
 
 // phi returns φ at squared distance r2.
@@ -107,7 +119,7 @@ func (b basis) phi(r2 float64) float64 {
 		if r2 == 0 {
 			return 0
 		}
-		return 0.5 * r2 * logPos(r2)
+		return 0.5 * r2 * b.lt.log(r2)
 	case Cubic:
 		return r2 * math.Sqrt(r2)
 	case Multiquadric:
@@ -146,7 +158,7 @@ func (b basis) phiD(r2 float64) (f, dr float64) {
 		if r2 == 0 {
 			return 0, 0
 		}
-		l := logPos(r2)
+		l := b.lt.log(r2)
 		return 0.5 * r2 * l, l + 1
 	case Cubic:
 		r := math.Sqrt(r2)

@@ -104,3 +104,20 @@ func TestKernelDerivatives(t *testing.T) {
 		})
 	}
 }
+
+// FuzzParseKernel: any input gives a kernel or an error, never a panic,
+// and an accepted name's String form parses back to the same kernel.
+func FuzzParseKernel(f *testing.F) {
+	for _, s := range []string{"", "thin-plate", "TPS", "mq", "wendland_c4", "Kernel(3)", "\x00", "gaussian "} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		k, err := ParseKernel(s)
+		if err != nil {
+			return
+		}
+		if k2, err := ParseKernel(k.String()); err != nil || k2 != k {
+			t.Errorf("ParseKernel(%q) = %v, but ParseKernel(%q) = %v, %v", s, k, k.String(), k2, err)
+		}
+	})
+}

@@ -184,7 +184,7 @@ func (lf *localFit) fitPatches(ctx context.Context, ds *dataset, plan localPlan,
 // lf.px, lf.py (patch coordinates) and their values are ds.v[member].
 func (lf *localFit) fitPatch(j int, ds *dataset, plan localPlan, sys *smallSystem) (float64, error) {
 	p := &lf.patches[j]
-	p.b = newBasis(plan.b.k, plan.b.eps*p.frad)
+	p.b = plan.b.scaled(p.frad)
 	x, y := lf.px[p.lo:p.hi], lf.py[p.lo:p.hi]
 	sys.f = grow(sys.f, len(x))
 	f := sys.f

@@ -74,7 +74,7 @@ func (lf *localFit) sampleLOO(ds *dataset, plan localPlan, sample []int) (float6
 			for i, k := range lf.member[p.lo:p.hi] {
 				f[i] = ds.v[k]
 			}
-			b := newBasis(plan.b.k, plan.b.eps*p.frad)
+			b := plan.b.scaled(p.frad)
 			sys.build(lf.px[p.lo:p.hi], lf.py[p.lo:p.hi], f, b, patchLambda(plan, p.frad))
 			if cond := sys.factor(); cond > maxCondition || math.IsNaN(cond) {
 				good = false

@@ -12,6 +12,11 @@ import (
 // tenth of a second at this size on a laptop core).
 const looAlwaysBelow = 600
 
+// localFewest is the fewest merged readings the local method takes; with
+// fewer, patches of localMin readings would overlap almost entirely and
+// Method Local falls back on the global fit (with a warning).
+const localFewest = 3 * localMin
+
 // surface is what a fitted model evaluates: a global fit or a partition of
 // unity. Both also implement rowEvaluator.
 type surface interface {
@@ -55,13 +60,22 @@ func Fit(ctx context.Context, xs, ys, vs []float64, opt Options) (*Model, error)
 		progress = func(int, int) {}
 	}
 	var m *Model
-	if chooseMethod(opt, len(ds.x)) == Local {
+	method := chooseMethod(opt, len(ds.x))
+	var note string
+	if method == Local && len(ds.x) < localFewest {
+		method = Global
+		note = fmt.Sprintf("%d readings are too few for the local method; the global fit was used", len(ds.x))
+	}
+	if method == Local {
 		m, err = fitLocalModel(ctx, ds, opt, progress)
 	} else {
 		m, err = fitGlobalModel(ctx, ds, opt, progress)
 	}
 	if err != nil {
 		return nil, err
+	}
+	if note != "" {
+		m.info.Warnings = append(m.info.Warnings, note)
 	}
 	m.ds = ds
 	m.info.Kernel = opt.Kernel

@@ -8,93 +8,251 @@ import (
 	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
-// smallSystem is a workspace for the dense saddle-point systems of the
-// partition-of-unity patches (a few dozen unknowns): build, factorise by
-// Gaussian elimination with partial pivoting (Golub & Van Loan, Matrix
-// Computations, 4th ed., §3.4), solve. One workspace per goroutine; it
-// grows to the largest patch and is then reused without allocating.
+// smallSystem is a workspace for the saddle-point systems of the
+// partition-of-unity patches (a few dozen readings each), solved by the
+// same null-space method as the global fit (see nullSpace): three
+// Householder reflectors turn [A+λI P; Pᵀ 0] into the positive definite
+// Zᵀ(A+λI)Z, which LAPACK's Cholesky factorisation (gonum's dpotrf)
+// solves at a third of the cost of an LU of the whole system. One
+// workspace per goroutine; it grows to the largest patch and is then
+// reused without allocating.
 type smallSystem struct {
-	n   int       // order: readings + 3
-	a   []float64 // n×n row-major, LU factors after factor
-	piv []int
-	rhs []float64
+	m   int       // readings
+	a   []float64 // m×m row-major: A+λI, then QᵀAQ with its Cholesky block
+	rhs []float64 // m+3: the values, then after solve c (m) and d (3)
 	f   []float64 // scratch for the caller's right-hand side
+	v   [3][]float64
+	tau [3]float64
+	r   [3][3]float64
+	p   []float64 // scratch vector
+	x   []float64 // scratch matrix for inverseDiag
 }
 
-// build fills the saddle matrix [A+λI P; Pᵀ 0] for points (x, y) and
-// right-hand side [f; 0].
+// build fills A+λI for points (x, y) and the right-hand side f.
 func (s *smallSystem) build(x, y, f []float64, b basis, lambda float64) {
 	m := len(x)
-	n := m + 3
-	s.n = n
-	if cap(s.a) < n*n {
-		s.a = make([]float64, n*n)
-		s.piv = make([]int, n)
-		s.rhs = make([]float64, n)
-	}
-	s.a, s.piv, s.rhs = s.a[:n*n], s.piv[:n], s.rhs[:n]
+	s.m = m
+	s.a, s.rhs, s.p = grow(s.a, m*m), grow(s.rhs, m+3), grow(s.p, m)
 	for i := 0; i < m; i++ {
-		row := s.a[i*n : i*n+n]
+		row := s.a[i*m : i*m+m]
 		for j := 0; j < i; j++ { // symmetric: copy the upper triangle
-			row[j] = s.a[j*n+i]
+			row[j] = s.a[j*m+i]
 		}
 		row[i] = b.phi(0) + lambda
 		for j := i + 1; j < m; j++ {
 			du, dv := x[i]-x[j], y[i]-y[j]
 			row[j] = b.phi(du*du + dv*dv)
 		}
-		row[m], row[m+1], row[m+2] = 1, x[i], y[i]
-		s.rhs[i] = f[i]
+	}
+	copy(s.rhs, f)
+	s.reflectors(x, y)
+}
+
+// reflectors computes the Householder QR of P = [1 x y].
+func (s *smallSystem) reflectors(x, y []float64) {
+	m := s.m
+	for k := range s.v {
+		s.v[k] = grow(s.v[k], m)
+	}
+	// Columns of P, reduced in place in s.v[0..2] before each becomes a
+	// reflector: column j lives in cols[j].
+	cols := [3][]float64{s.v[0], s.v[1], s.v[2]}
+	for i := 0; i < m; i++ {
+		cols[0][i], cols[1][i], cols[2][i] = 1, x[i], y[i]
 	}
 	for k := 0; k < 3; k++ {
-		row := s.a[(m+k)*n : (m+k)*n+n]
-		for j := 0; j < m; j++ {
-			row[j] = [3]float64{1, x[j], y[j]}[k]
+		c := cols[k]
+		var norm2 float64
+		for i := k; i < m; i++ {
+			norm2 += c[i] * c[i]
 		}
-		row[m], row[m+1], row[m+2] = 0, 0, 0
-		s.rhs[m+k] = 0
+		alpha := -sqrtSign(norm2, c[k])
+		vv := norm2 - 2*alpha*c[k] + alpha*alpha
+		tau := 0.0
+		if vv > 0 {
+			tau = 2 / vv
+		}
+		c[k] -= alpha // c[k:] is now the reflector v_k
+		for j := k + 1; j < 3; j++ {
+			var dot float64
+			for i := k; i < m; i++ {
+				dot += c[i] * cols[j][i]
+			}
+			s.r[k][j] = cols[j][k] - tau*dot*c[k]
+			for i := k; i < m; i++ {
+				cols[j][i] -= tau * dot * c[i]
+			}
+		}
+		for i := 0; i < k; i++ {
+			c[i] = 0
+		}
+		s.r[k][k] = alpha
+		s.tau[k] = tau
 	}
 }
 
-// factor computes the LU factors in place with LAPACK's dgetrf as gonum
-// implements it (its row updates run on gonum's assembly kernels). It
-// returns a crude condition estimate, the largest entry of the matrix
-// over the smallest pivot magnitude, or +Inf when a pivot vanishes.
+// factor reduces the system to ZᵀAZ and factorises it. It returns a crude
+// condition estimate, the largest diagonal entry of ZᵀAZ over the
+// smallest squared Cholesky pivot, or +Inf when the factorisation fails or
+// the points leave the polynomial undetermined.
 func (s *smallSystem) factor() float64 {
-	var amax float64
-	for _, v := range s.a {
-		amax = max(amax, math.Abs(v))
+	m := s.m
+	s.transform(s.a, true)
+	var dmax float64
+	for i := 3; i < m; i++ {
+		dmax = max(dmax, math.Abs(s.a[i*m+i]))
 	}
-	if !lapack64.Getrf(s.general(), s.piv) {
+	if m <= 3 || math.Abs(s.r[2][2]) <= 1e-12*math.Abs(s.r[0][0]) {
+		return math.Inf(1)
+	}
+	if _, ok := lapack64.Potrf(blas64.Symmetric{N: m - 3, Stride: m, Data: s.a[3*m+3:], Uplo: blas.Upper}); !ok {
 		return math.Inf(1)
 	}
 	pmin := math.Inf(1)
-	for k := 0; k < s.n; k++ {
-		pmin = min(pmin, math.Abs(s.a[k*s.n+k]))
+	for i := 3; i < m; i++ {
+		pmin = min(pmin, s.a[i*m+i]*s.a[i*m+i])
 	}
-	return amax / pmin
+	return dmax / pmin
 }
 
-func (s *smallSystem) general() blas64.General {
-	return blas64.General{Rows: s.n, Cols: s.n, Stride: s.n, Data: s.a}
+// block is the (m−3)×(m−3) lower-right block of s.a, upper triangle.
+func (s *smallSystem) block() blas64.Triangular {
+	return blas64.Triangular{N: s.m - 3, Stride: s.m, Data: s.a[3*s.m+3:], Uplo: blas.Upper, Diag: blas.NonUnit}
 }
 
-// solve overwrites b with the solution of the factorised system.
+// transform overwrites the symmetric m×m matrix a with QᵀaQ (forward) or
+// QaQᵀ, one rank-two update per reflector (see nullSpace.transform).
+func (s *smallSystem) transform(a []float64, forward bool) {
+	m, p := s.m, s.p
+	for t := 0; t < 3; t++ {
+		k := t
+		if !forward {
+			k = 2 - t
+		}
+		v, tau := s.v[k], s.tau[k]
+		var vp float64
+		for i := 0; i < m; i++ {
+			row := a[i*m : i*m+m]
+			var dot float64
+			for j := k; j < m; j++ {
+				dot += row[j] * v[j]
+			}
+			p[i] = tau * dot
+			vp += v[i] * p[i]
+		}
+		half := tau / 2 * vp
+		for i := range p[:m] {
+			p[i] -= half * v[i]
+		}
+		for i := 0; i < m; i++ {
+			row := a[i*m : i*m+m]
+			vi, wi := v[i], p[i]
+			for j := range row {
+				row[j] -= vi*p[j] + wi*v[j]
+			}
+		}
+	}
+}
+
+// reflect applies the reflectors to a vector: Qᵀf (forward) or Qf.
+func (s *smallSystem) reflect(f []float64, forward bool) {
+	for t := 0; t < 3; t++ {
+		k := t
+		if !forward {
+			k = 2 - t
+		}
+		v := s.v[k]
+		var dot float64
+		for i := k; i < s.m; i++ {
+			dot += v[i] * f[i]
+		}
+		dot *= s.tau[k]
+		for i := k; i < s.m; i++ {
+			f[i] -= dot * v[i]
+		}
+	}
+}
+
+// solve overwrites b (length m+3, the values first) with the
+// coefficients c (m) and the polynomial part d (3).
 func (s *smallSystem) solve(b []float64) {
-	lapack64.Getrs(blas.NoTrans, s.general(), blas64.General{Rows: s.n, Cols: 1, Stride: 1, Data: b[:s.n]}, s.piv)
+	m := s.m
+	g := b[:m]
+	s.reflect(g, true)
+	w := g[3:]
+	s.cholSolve(w)
+	var rhs [3]float64
+	for i := 0; i < 3; i++ {
+		sum := g[i]
+		row := s.a[i*m+3 : i*m+m]
+		for j, wj := range w {
+			sum -= row[j] * wj
+		}
+		rhs[i] = sum
+	}
+	var d [3]float64
+	for i := 2; i >= 0; i-- {
+		sum := rhs[i]
+		for j := i + 1; j < 3; j++ {
+			sum -= s.r[i][j] * d[j]
+		}
+		d[i] = sum / s.r[i][i]
+	}
+	g[0], g[1], g[2] = 0, 0, 0
+	s.reflect(g, false)
+	copy(b[m:m+3], d[:])
 }
 
-// inverseDiag writes into dst the first len(dst) diagonal entries of the
-// inverse of the factorised matrix, computed whole by LAPACK's dgetri
-// (gonum's implementation). It destroys the factors; work is scratch,
-// grown as needed and returned for reuse.
+// cholSolve overwrites w with (UᵀU)⁻¹w for the Cholesky factor U in the
+// upper triangle of the lower-right block of s.a: a forward and a back
+// substitution (a direct loop is several times faster than a general
+// triangular solve at this size).
+func (s *smallSystem) cholSolve(w []float64) {
+	m, n := s.m, len(w)
+	u := s.a[3*m+3:]
+	for i := 0; i < n; i++ { // Uᵀ y = w
+		sum := w[i]
+		for k := 0; k < i; k++ {
+			sum -= u[k*m+i] * w[k]
+		}
+		w[i] = sum / u[i*m+i]
+	}
+	for i := n - 1; i >= 0; i-- { // U x = y
+		row := u[i*m : i*m+n]
+		sum := w[i]
+		for k := i + 1; k < n; k++ {
+			sum -= row[k] * w[k]
+		}
+		w[i] = sum / row[i]
+	}
+}
+
+// inverseDiag writes into dst the first len(dst) ≤ m diagonal entries of
+// the inverse of the saddle matrix, diag(Z (ZᵀAZ)⁻¹ Zᵀ), from the
+// Cholesky factor (gonum's dpotri). It destroys the factor; work is
+// scratch, returned for reuse.
 func (s *smallSystem) inverseDiag(dst, work []float64) []float64 {
-	var q [1]float64
-	lapack64.Getri(s.general(), s.piv, q[:], -1)
-	work = grow(work, max(int(q[0]), s.n))
-	lapack64.Getri(s.general(), s.piv, work, len(work))
+	m := s.m
+	if _, ok := lapack64.Potri(s.block()); !ok {
+		for k := range dst {
+			dst[k] = math.NaN()
+		}
+		return work
+	}
+	s.x = grow(s.x, m*m)
+	x := s.x
+	for i := range x {
+		x[i] = 0
+	}
+	for i := 3; i < m; i++ {
+		for j := i; j < m; j++ {
+			v := s.a[i*m+j]
+			x[i*m+j], x[j*m+i] = v, v
+		}
+	}
+	s.transform(x, false)
 	for k := range dst {
-		dst[k] = s.a[k*s.n+k]
+		dst[k] = x[k*m+k]
 	}
 	return work
 }

@@ -59,6 +59,7 @@ func describeView(p mapPane) string {
 	}{
 		{mapview.LayerBands, "bands"}, {mapview.LayerField, "field magnitude"},
 		{mapview.LayerZones, "zones"}, {mapview.LayerReadings, "readings"},
+		{mapview.LayerFlaggedReadings, "suspect and excluded readings"},
 		{mapview.LayerArrows, "arrows"}, {mapview.LayerSuggestions, "infill points"},
 		{mapview.LayerContours, "band edges"},
 	} {

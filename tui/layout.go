@@ -9,7 +9,6 @@ import (
 	"github.com/charmbracelet/lipgloss"
 
 	"isofield/survey/criteria"
-	"isofield/survey/qa"
 )
 
 // Rows taken by the status line, the message line and the help line.
@@ -41,7 +40,7 @@ func (m Model) resize(w, h int) Model {
 	m.profile = m.profile.SetSize(m.width, body)
 	m.settings = m.settings.SetSize(m.width, body)
 	m.reason = fitInput(m.reason, m.width)
-	m.help.Width = m.width - 2 // bubbles' help can overrun its width by a little
+	m.help.Width = m.width
 	return m
 }
 
@@ -66,7 +65,63 @@ func (m Model) View() (out string) {
 		body = m.centre(m.helpOverlay())
 	}
 	body = fitHeight(body, m.height-chromeRows)
-	return m.statusLine() + "\n" + body + "\n" + m.messageLine() + "\n" + m.help.ShortHelpView(m.keys.ShortHelp())
+	return m.statusLine() + "\n" + body + "\n" + m.messageLine() + "\n" + m.helpLine()
+}
+
+// helpLine is the short help of the focused screen, as many keys as fit
+// the width, then "…" when some were left out (Bubbles' own cut can
+// overrun the width by a whole item).
+func (m Model) helpLine() string { return fitShortHelp(m.help, m.helpKeys(), m.width) }
+
+// helpKeys are the keys of the short help, most useful first.
+func (m Model) helpKeys() []key.Binding {
+	typing := m.focus == focusSettings && m.settings.Editing()
+	bs := m.keys.shortHelpFor(m.focus, m.prompting, typing)
+	if m.running && !m.prompting && !typing {
+		bs = append([]key.Binding{bs[0], m.keys.Cancel}, bs[1:]...)
+	}
+	return bs
+}
+
+// fitShortHelp renders the longest prefix of bs that fits w cells. The
+// prefix is chosen from the plain widths of the items (the help styles
+// add no padding), and the result measured once to be sure.
+func fitShortHelp(h help.Model, bs []key.Binding, w int) string {
+	h.Width = 0 // measure uncut
+	tail := " " + h.Styles.Ellipsis.Render(h.Ellipsis)
+	sep := lipgloss.Width(h.ShortSeparator)
+	var enabled []key.Binding
+	for _, b := range bs {
+		if b.Enabled() {
+			enabled = append(enabled, b)
+		}
+	}
+	n, used := 0, 0
+	for n < len(enabled) {
+		iw := lipgloss.Width(enabled[n].Help().Key) + 1 + lipgloss.Width(enabled[n].Help().Desc)
+		if n > 0 {
+			iw += sep
+		}
+		room := w
+		if n+1 < len(enabled) {
+			room -= lipgloss.Width(tail) // the items after it need the "…"
+		}
+		if used+iw > room {
+			break
+		}
+		used += iw
+		n++
+	}
+	for ; n > 0; n-- {
+		s := h.ShortHelpView(enabled[:n])
+		if n < len(enabled) {
+			s += tail
+		}
+		if lipgloss.Width(s) <= w {
+			return s
+		}
+	}
+	return truncate(h.ShortHelpView(enabled[:min(1, len(enabled))]), w)
 }
 
 func wrapJoin(s string, w int) string { return strings.Join(wrap(s, max(w, 10)), "\n") }
@@ -148,26 +203,10 @@ func (m Model) statusLine() string {
 		style = st.StatusBusy
 	}
 	if sc := m.scene; sc != nil {
-		n, sus, exc := countStatus(sc)
-		parts = append(parts, fmt.Sprintf("%d readings, %d suspect, %d excluded", n, sus, exc),
+		parts = append(parts, fmt.Sprintf("%d readings, %d suspect, %d excluded", len(sc.res.Survey.Readings), sc.stats.sus, sc.stats.exc),
 			fmt.Sprintf("%d zones", len(sc.zones)), m.cfg.Criteria.Name())
 	}
 	return style.Width(m.width).MaxWidth(m.width).Render(truncate(strings.Join(parts, " · "), m.width))
-}
-
-func countStatus(sc *scene) (n, sus, exc int) {
-	n = len(sc.res.Survey.Readings)
-	if q := sc.res.QA; q != nil {
-		for _, s := range q.Status {
-			switch s {
-			case qa.Suspect:
-				sus++
-			case qa.Excluded:
-				exc++
-			}
-		}
-	}
-	return n, sus, exc
 }
 
 // messageLine shows the reason prompt, the progress bar, the last message
@@ -191,7 +230,7 @@ func (m Model) messageLine() string {
 // cautions of the preset; otherwise the cautions are a page of their own.
 func (m Model) helpOverlay() string {
 	if m.cautions {
-		return m.styles.Overlay.Render(strings.Join(m.cautionLines(min(m.width-6, 76), m.height-chromeRows-4), "\n"))
+		return m.styles.Overlay.Render(strings.Join(m.cautionLines(min(m.width-4, 100), m.height-chromeRows-2), "\n"))
 	}
 	keys := m.keysHelp()
 	body := m.styles.PanelTitle.Render("Keys") + "\n" + keys

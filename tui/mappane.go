@@ -43,8 +43,31 @@ func (p mapPane) SetData(d *mapview.Data) mapPane {
 		p.view.CX, p.view.CY = f.CX, f.CY
 		p.view.CursorX, p.view.CursorY = f.CX, f.CY
 		p.fitted = true
+		if p.Crowded() {
+			p.view.Layers &^= mapview.LayerReadings // suspects and exclusions stay
+		}
 	}
 	return p.refit()
+}
+
+// crowdedShare is the share of the map's cells above which readings
+// hide the bands: the map then opens with only suspect and excluded
+// readings marked.
+const crowdedShare = 1.0 / 8
+
+// Crowded reports whether the readings would mark more than crowdedShare
+// of the map's cells.
+func (p mapPane) Crowded() bool {
+	if p.data == nil {
+		return false
+	}
+	n := 0
+	for _, pt := range p.data.Points {
+		if pt.Kind != mapview.KindSuggestion {
+			n++
+		}
+	}
+	return float64(n) > crowdedShare*float64(p.width*p.height)
 }
 
 // refit recomputes the scale from the size and zoom.
@@ -116,15 +139,28 @@ func (p mapPane) zoomBy(f float64) mapPane {
 	return p.refit()
 }
 
-// toggleLayer flips the layer bound to km, if any.
+// toggleLayer flips the layer bound to km, if any. The readings key
+// steps through all readings, only suspect and excluded ones, and none.
 func (p mapPane) toggleLayer(km tea.KeyMsg) mapPane {
 	k := p.keys
+	if key.Matches(km, k.Readings) {
+		const all, flagged = mapview.LayerReadings | mapview.LayerFlaggedReadings, mapview.LayerFlaggedReadings
+		switch p.view.Layers & all {
+		case all:
+			p.view.Layers = p.view.Layers&^all | flagged
+		case flagged:
+			p.view.Layers &^= all
+		default:
+			p.view.Layers |= all
+		}
+		return p
+	}
 	for _, l := range []struct {
 		b key.Binding
 		l mapview.Layers
 	}{
 		{k.Bands, mapview.LayerBands}, {k.Field, mapview.LayerField},
-		{k.Zones, mapview.LayerZones}, {k.Readings, mapview.LayerReadings},
+		{k.Zones, mapview.LayerZones},
 		{k.Arrows, mapview.LayerArrows}, {k.Suggestions, mapview.LayerSuggestions},
 		{k.Contours, mapview.LayerContours},
 	} {

@@ -75,6 +75,7 @@ type Model struct {
 	reason    textinput.Model
 
 	message  string
+	msgSeq   int // counts messages; a message clears after messageLife
 	watch    watchStamp
 	initCmd  tea.Cmd
 	panicked string // cause of a caught panic; the UI then quits
@@ -145,7 +146,24 @@ func (m Model) Update(msg tea.Msg) (next tea.Model, cmd tea.Cmd) {
 			next, cmd = m, tea.Quit
 		}
 	}()
-	return m.update(msg)
+	before := m.message
+	next, cmd = m.update(msg)
+	if nm, ok := next.(Model); ok && nm.message != before && nm.message != "" {
+		nm.msgSeq++
+		next, cmd = nm, tea.Batch(cmd, clearLater(nm.msgSeq))
+	}
+	return next, cmd
+}
+
+// messageLife is how long a message stays on the message line; then the
+// line goes back to what it shows when idle (for grounding, the caution).
+const messageLife = 8 * time.Second
+
+// clearMsg clears message number seq, unless a newer one replaced it.
+type clearMsg struct{ seq int }
+
+func clearLater(seq int) tea.Cmd {
+	return tea.Tick(messageLife, func(time.Time) tea.Msg { return clearMsg{seq} })
 }
 
 func (m Model) update(msg tea.Msg) (tea.Model, tea.Cmd) {
@@ -172,6 +190,11 @@ func (m Model) update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		save := saveEdits(m.opt.Save, m.opt.SessionPath, m.cfg)
 		m, run := m.regrid("settings")
 		return m, tea.Batch(save, run)
+	case clearMsg:
+		if msg.seq == m.msgSeq {
+			m.message = ""
+		}
+		return m, nil
 	case jumpMsg:
 		m.mapPane = m.mapPane.MoveTo(msg.X, msg.Y)
 		return m, nil
@@ -211,11 +234,18 @@ func (m Model) onResult(msg resultMsg) (tea.Model, tea.Cmd) {
 		return m, nil
 	}
 	m.state, m.err = stateReady, nil
-	m.scene = newScene(msg.res, m.cfg)
+	m.scene = msg.scene
+	if m.scene == nil {
+		m.scene = newScene(msg.res, m.cfg)
+	}
+	first := !m.mapPane.fitted
 	m.mapPane = m.mapPane.SetData(m.scene.data)
+	if first && m.mapPane.Crowded() {
+		m.message = "many readings: only suspects (?) and exclusions (x) marked; 4: all/flagged/none"
+	}
 	m.zones = m.zones.SetZones(m.scene.zones, m.scene.unit)
-	m.table = m.table.SetResult(msg.res)
-	m.settings = m.settings.SetConfig(m.cfg)
+	m.table = m.table.SetResult(msg.res, m.scene.stats)
+	m.settings = m.settings.SetConfig(m.cfg).SetUnit(m.scene.unit)
 	m.profile = m.profile.Set(m.scene, m.marks[0], m.marks[1])
 	if msg.preview {
 		return m.regrid("full grid")

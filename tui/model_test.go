@@ -41,6 +41,9 @@ func TestMapKeys(t *testing.T) {
 		{[]string{"2"}, layerOn(mapview.LayerField)},
 		{[]string{"3"}, layerOff(mapview.LayerZones)},
 		{[]string{"4"}, layerOff(mapview.LayerReadings)},
+		{[]string{"4"}, layerOn(mapview.LayerFlaggedReadings)},
+		{[]string{"4", "4"}, layerOff(mapview.LayerFlaggedReadings)},
+		{[]string{"4", "4", "4"}, layerOn(mapview.LayerReadings | mapview.LayerFlaggedReadings)},
 		{[]string{"5"}, layerOn(mapview.LayerArrows)},
 		{[]string{"6"}, layerOff(mapview.LayerSuggestions)},
 		{[]string{"7"}, layerOn(mapview.LayerContours)},
@@ -212,19 +215,8 @@ func TestExcludeAndInclude(t *testing.T) {
 		t.Errorf("running %v gen %d, want a new run of generation %d", m.running, m.gen, gen+1)
 	}
 	// Run the save (and not the pipeline) from the batch.
-	for _, c := range cmd().(tea.BatchMsg) {
-		if c == nil {
-			continue
-		}
-		done := make(chan tea.Msg, 1)
-		go func() { done <- c() }()
-		select {
-		case msg := <-done:
-			if s, ok := msg.(savedMsg); ok {
-				m = update1(t, m, s)
-			}
-		case <-time.After(50 * time.Millisecond):
-		}
+	if s, ok := waitFor[savedMsg](cmd, 2*time.Second); ok {
+		m = update1(t, m, s)
 	}
 	if len(saved) != 1 || len(saved[0]) != 1 {
 		t.Errorf("saved %v, want one save of one edit", saved)
@@ -317,6 +309,18 @@ func TestMessages(t *testing.T) {
 			t.Errorf("cursor moved to (%g, %g) from (%g, %g)", cx, cy, x, y)
 		}
 	})
+	t.Run("a message clears after its time, not an older one's", func(t *testing.T) {
+		m := press(t, readyModel(t, 80, 24, false), "l", "l", "x")
+		if m.message == "" || m.msgSeq == 0 {
+			t.Fatalf("message %q seq %d, want a message", m.message, m.msgSeq)
+		}
+		if m = update1(t, m, clearMsg{m.msgSeq - 1}); m.message == "" {
+			t.Error("an older message's timer cleared the newer one")
+		}
+		if m = update1(t, m, clearMsg{m.msgSeq}); m.message != "" {
+			t.Errorf("message %q still shown after its time", m.message)
+		}
+	})
 	t.Run("save error shown", func(t *testing.T) {
 		m := update1(t, readyModel(t, 80, 24, false), savedMsg{err: errors.New("disk full")})
 		if m.message == "" {
@@ -394,9 +398,9 @@ func TestExportKey(t *testing.T) {
 	if cmd == nil {
 		t.Fatal("e gave no command")
 	}
-	msg, ok := cmd().(exportedMsg)
+	msg, ok := waitFor[exportedMsg](cmd, 30*time.Second)
 	if !ok {
-		t.Fatalf("e's command returned %T, want exportedMsg", msg)
+		t.Fatal("e's command gave no exportedMsg")
 	}
 	m = update1(t, next.(Model), msg)
 	if msg.err != nil || msg.files == 0 {

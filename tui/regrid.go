@@ -19,6 +19,7 @@ import (
 type resultMsg struct {
 	gen     int
 	res     *pipeline.Result
+	scene   *scene // derived from res in the background (nil: derive it)
 	err     error
 	preview bool
 }
@@ -88,7 +89,7 @@ func runPipeline(cfg pipeline.Config, gen int, preview bool) (tea.Cmd, context.C
 			return runPreview(ctx, cfg, gen, report)
 		}
 		res, err := pipeline.Run(ctx, cfg, report)
-		return resultMsg{gen: gen, res: res, err: err}
+		return withScene(resultMsg{gen: gen, res: res, err: err}, cfg)
 	}
 	return tea.Batch(safe(run), wait), cancel
 }
@@ -191,5 +192,15 @@ func runPreview(ctx context.Context, cfg pipeline.Config, gen int, report pipeli
 	cfg.Spacing = previewCoarsening * pipeline.AutoSpacing(xmax-xmin, ymax-ymin)
 	cfg.Suggest = 0
 	res, err := pipeline.Run(ctx, cfg, report)
-	return resultMsg{gen: gen, res: res, err: err, preview: true}
+	return withScene(resultMsg{gen: gen, res: res, err: err, preview: true}, cfg)
+}
+
+// withScene derives the scene of a successful result, so that the UI loop
+// only swaps it in (at 10⁶ readings the derivation takes a noticeable
+// fraction of a second).
+func withScene(msg resultMsg, cfg pipeline.Config) resultMsg {
+	if msg.err == nil && msg.res != nil {
+		msg.scene = newScene(msg.res, cfg)
+	}
+	return msg
 }

@@ -2,7 +2,6 @@ package tui
 
 import (
 	"math"
-	"path/filepath"
 	"sort"
 
 	"isofield/interp"
@@ -26,6 +25,7 @@ type scene struct {
 	notes     []string
 	threshold float64 // field threshold in unit per metre (0: none)
 	near      *nearIndex
+	stats     readingStats // for the status line and the readings table
 }
 
 // zoneInfo is one flagged zone, ranked by severity (rank 1 first).
@@ -82,6 +82,7 @@ func newScene(res *pipeline.Result, cfg pipeline.Config) *scene {
 	}
 	sc.data = mapview.NewData(g, pot, field, flagged, pts)
 	sc.near = newNearIndex(res.Survey.Readings)
+	sc.stats = measureReadings(res)
 	return sc
 }
 
@@ -215,14 +216,4 @@ func rankZones(zones []zoneInfo, of []int32) ([]zoneInfo, []int32) {
 		}
 	}
 	return out, of
-}
-
-// sourceName returns the base name of reading i's file.
-func sourceName(res *pipeline.Result, i int) string {
-	s := res.Survey
-	r := s.Readings[i]
-	if r.File >= 0 && r.File < len(s.Files) {
-		return filepath.Base(s.Files[r.File].Path)
-	}
-	return ""
 }

@@ -35,11 +35,12 @@ type settingsForm struct {
 	editing       bool
 	input         textinput.Model
 	err           string
+	unit          string // the survey's potential unit, for the labels
 	width, height int
 }
 
 // settingsLabelWidth is the width of the settings' label column.
-const settingsLabelWidth = 32
+const settingsLabelWidth = 36
 
 func newSettingsForm(keys KeyMap, st Styles) settingsForm {
 	in := newTextInput(st, 32)
@@ -58,6 +59,21 @@ func (f settingsForm) SetConfig(c pipeline.Config) settingsForm {
 	f.cfg = c
 	f.cursor = min(f.cursor, len(f.visible())-1)
 	return f
+}
+
+// SetUnit names the potential unit the labels show.
+func (f settingsForm) SetUnit(u string) settingsForm {
+	f.unit = u
+	return f
+}
+
+// label returns s's label with the unit filled in.
+func (f settingsForm) label(s setting) string {
+	u := f.unit
+	if u == "" {
+		u = "unit"
+	}
+	return strings.ReplaceAll(s.label, "{U}", u)
 }
 
 // Editing reports whether a value is being typed (keys go to the input).
@@ -134,7 +150,7 @@ func (f settingsForm) commit(s setting, v string) (settingsForm, tea.Cmd) {
 	c := f.cfg
 	c.Criteria = cloneCriteria(c.Criteria)
 	if err := s.set(&c, strings.TrimSpace(v)); err != nil {
-		f.err = s.label + ": " + err.Error()
+		f.err = f.label(s) + ": " + err.Error()
 		return f, nil
 	}
 	f.err = ""
@@ -175,7 +191,7 @@ func (f settingsForm) View() string {
 		if i == f.cursor {
 			mark = "▶ "
 		}
-		l := fmt.Sprintf("%s%-*s %s", mark, settingsLabelWidth, s.label, val)
+		l := mark + pad(f.label(s), settingsLabelWidth) + " " + val
 		if i == f.cursor && !f.editing {
 			l = st.Selected.Render(l)
 		}

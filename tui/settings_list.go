@@ -16,10 +16,10 @@ func allSettings() []setting {
 		{label: "preset", choices: criteria.Presets(),
 			get: func(c *pipeline.Config) string { return c.Criteria.Name() },
 			set: func(c *pipeline.Config, s string) error { c.Criteria.Preset = s; return nil }},
-		{label: "field threshold (U/m; 0 preset)",
+		{label: "field threshold ({U}/m; 0 = preset)",
 			get: func(c *pipeline.Config) string { return f(c.Criteria.FieldThreshold) },
 			set: func(c *pipeline.Config, s string) (err error) { c.Criteria.FieldThreshold, err = number(s); return }},
-		{label: "contour interval (U; 0 auto)",
+		{label: "contour interval ({U}; 0 = auto)",
 			get: func(c *pipeline.Config) string { return f(c.Interval) },
 			set: func(c *pipeline.Config, s string) (err error) { c.Interval, err = nonNegative(s); return }},
 		{label: "kernel", choices: kernelNames(),
@@ -33,7 +33,7 @@ func allSettings() []setting {
 				return f(c.Fit.Smoothing)
 			},
 			set: setSmoothing},
-		{label: "grid spacing (m; 0 auto)",
+		{label: "grid spacing (m; 0 = auto)",
 			get: func(c *pipeline.Config) string { return f(c.Spacing) },
 			set: func(c *pipeline.Config, s string) (err error) { c.Spacing, err = nonNegative(s); return }},
 		{label: "grid suspects too", choices: []string{"no", "yes"},
@@ -76,9 +76,9 @@ func presetSettings() []setting {
 			set: func(c *pipeline.Config, s string) (err error) { *p(c), err = setOptional(s); return }}
 	}
 	return []setting{
-		opt("flag potential ≤ (U; empty none)", func(c *pipeline.Config) **float64 { return &c.Criteria.Below }),
-		opt("flag potential ≥ (U; empty none)", func(c *pipeline.Config) **float64 { return &c.Criteria.Above }),
-		num("concrete cover (mm; 0 unknown)", criteria.Concrete, func(c *pipeline.Config) *float64 { return &c.Criteria.CoverMM }),
+		opt("flag potential ≤ ({U}; empty: none)", func(c *pipeline.Config) **float64 { return &c.Criteria.Below }),
+		opt("flag potential ≥ ({U}; empty: none)", func(c *pipeline.Config) **float64 { return &c.Criteria.Above }),
+		num("concrete cover (mm; 0 = unknown)", criteria.Concrete, func(c *pipeline.Config) *float64 { return &c.Criteria.CoverMM }),
 		{label: "body weight (kg)", preset: criteria.Grounding, choices: []string{"50", "70"},
 			get: func(c *pipeline.Config) string {
 				if c.Criteria.BodyKg == 70 {
@@ -89,9 +89,9 @@ func presetSettings() []setting {
 			set: func(c *pipeline.Config, s string) (err error) { c.Criteria.BodyKg, err = number(s); return }},
 		num("clearing time (s; 0 = 0.5)", criteria.Grounding, func(c *pipeline.Config) *float64 { return &c.Criteria.ClearingTime }),
 		num("soil resistivity (Ω·m)", criteria.Grounding, func(c *pipeline.Config) *float64 { return &c.Criteria.SoilRho }),
-		num("surface layer (Ω·m; 0 none)", criteria.Grounding, func(c *pipeline.Config) *float64 { return &c.Criteria.SurfaceRho }),
+		num("surface layer (Ω·m; 0 = none)", criteria.Grounding, func(c *pipeline.Config) *float64 { return &c.Criteria.SurfaceRho }),
 		num("surface layer depth (m)", criteria.Grounding, func(c *pipeline.Config) *float64 { return &c.Criteria.SurfaceDepth }),
-		num("grid potential rise (U)", criteria.Grounding, func(c *pipeline.Config) *float64 { return &c.Criteria.GPR }),
+		num("grid potential rise ({U})", criteria.Grounding, func(c *pipeline.Config) *float64 { return &c.Criteria.GPR }),
 		{label: "criterion (mV CSE; 0 = −850)", preset: criteria.CP,
 			get: func(c *pipeline.Config) string { return strconv.FormatFloat(c.Criteria.CPLimitMV, 'g', -1, 64) },
 			set: func(c *pipeline.Config, s string) (err error) { c.Criteria.CPLimitMV, err = number(s); return }},

@@ -31,9 +31,14 @@ func (p sidePane) View(sc *scene, pr probe, mp mapPane) string {
 	fw, fh := st.Panel.GetFrameSize()
 	inner := max(p.width-fw, 8)
 	lines := p.readout(sc, pr, inner)
-	lines = append(lines, "")
 	room := max(p.height-fh-len(lines), 0)
-	lines = append(lines, p.legend(sc, mp, inner, room)...)
+	legend, whole := p.legend(sc, mp, inner, room-1)
+	if whole { // a blank line between, when there is room
+		lines = append(lines, "")
+	} else {
+		legend, _ = p.legend(sc, mp, inner, room)
+	}
+	lines = append(lines, legend...)
 	if len(lines) > p.height-fh {
 		lines = lines[:max(p.height-fh, 0)]
 	}
@@ -42,10 +47,20 @@ func (p sidePane) View(sc *scene, pr probe, mp mapPane) string {
 		Height(max(p.height-fh, 0)).MaxHeight(p.height).Render(body)
 }
 
-func (p sidePane) row(label, value string, w int) string {
+// row shows a labelled value, continued on further lines under the value
+// when it is too long for one.
+func (p sidePane) row(label, value string, w int) []string {
 	st := p.styles
-	s := st.Label.Render(fmt.Sprintf("%-5s", label)) + " " + st.Value.Render(value)
-	return truncate(s, w)
+	parts := wrap(value, max(w-6, 8))
+	out := make([]string, len(parts))
+	for i, v := range parts {
+		l := ""
+		if i == 0 {
+			l = label
+		}
+		out[i] = truncate(st.Label.Render(fmt.Sprintf("%-5s", l))+" "+st.Value.Render(strings.TrimRight(v, " ")), w)
+	}
+	return out
 }
 
 // truncate cuts s to w cells.
@@ -60,26 +75,25 @@ func truncate(s string, w int) string {
 func (p sidePane) readout(sc *scene, pr probe, w int) []string {
 	st := p.styles
 	u := sc.unit
-	out := []string{st.PanelTitle.Render("At cursor"),
-		p.row("x,y", fixed(pr.X)+", "+fixed(pr.Y)+" m", w)}
+	out := append([]string{st.PanelTitle.Render("At cursor")}, p.row("x,y", fixed(pr.X)+", "+fixed(pr.Y)+" m", w)...)
 	if !pr.Inside {
-		out = append(out, p.row("V", "outside the surveyed area", w))
+		out = append(out, p.row("V", "outside the surveyed area", w)...)
 	} else {
-		out = append(out, p.row("V", num(pr.V)+" "+u, w))
+		out = append(out, p.row("V", num(pr.V)+" "+u, w)...)
 		e := hypot(pr.EX, pr.EY)
 		b, name := bearing(pr.EX, pr.EY)
-		out = append(out, p.row("|E|", fmt.Sprintf("%s %s/m → %03.0f° %s", num(e), u, b, name), w))
+		out = append(out, p.row("|E|", fmt.Sprintf("%s %s/m → %03.0f° %s", num(e), u, b, name), w)...)
 		if pr.HasStep {
-			out = append(out, p.row("step", num(pr.StepValue)+" "+u+" over 1 m", w))
+			out = append(out, p.row("step", num(pr.StepValue)+" "+u+" over 1 m", w)...)
 		}
-		out = append(out, p.row("band", sc.bandLabel(pr.Band), w))
+		out = append(out, p.row("band", sc.bandLabel(pr.Band), w)...)
 	}
 	if pr.Nearest >= 0 {
-		out = append(out, p.row("near", sc.readingLabel(pr.Nearest, pr.NearDist), w))
+		out = append(out, p.row("near", sc.readingLabel(pr.Nearest, pr.NearDist), w)...)
 	}
 	if pr.Zone >= 0 && pr.Zone < len(sc.zones) {
 		z := sc.zones[pr.Zone]
-		out = append(out, p.row("zone", fmt.Sprintf("#%d of %d, %s m²", z.Rank, len(sc.zones), num(z.Area)), w))
+		out = append(out, p.row("zone", fmt.Sprintf("#%d of %d, %s m²", z.Rank, len(sc.zones), num(z.Area)), w)...)
 	}
 	return out
 }
@@ -103,30 +117,60 @@ func (sc *scene) readingLabel(i int, dist float64) string {
 }
 
 // legend lists the bands of the base layer, highest first, in at most room
-// lines, followed by the criterion.
-func (p sidePane) legend(sc *scene, mp mapPane, w, room int) []string {
+// lines, followed by the criterion (at most three lines). Bands that do
+// not fit one a line go two a line; if even that is too long, an evenly
+// spread choice is shown and the title says so; whole reports that every
+// band is listed.
+func (p sidePane) legend(sc *scene, mp mapPane, w, room int) (lines []string, whole bool) {
 	st := p.styles
 	b, _, ok := mp.renderer.BaseBands(sc.data, mp.view)
 	if !ok || room < 2 {
-		return nil
+		return nil, false
 	}
 	unit, what := sc.unit, "potential"
 	if mp.view.Layers&mapview.LayerField != 0 {
 		unit, what = sc.unit+"/m", "field |E|"
 	}
-	out := []string{st.PanelTitle.Render("Legend ") + st.Label.Render(what+", "+unit)}
 	crit := wrap(sc.criterion, w)
+	crit = crit[:min(len(crit), 3, max(room-3, 0))]
+	show := max(room-1-len(crit), 1)
 	n := b.N()
-	show := max(room-1-min(len(crit), 3), 1)
-	step := max((n+show-1)/show, 1)
-	for k := n - 1; k >= 0; k -= step {
-		sw := p.swatch(sc, mp, k)
-		out = append(out, truncate(sw+" "+num(b.Edges[k])+" … "+num(b.Edges[k+1]), w))
+	entries := make([]string, 0, n)
+	widest := 0
+	for k := n - 1; k >= 0; k-- {
+		e := p.swatch(sc, mp, k) + " " + num(b.Edges[k]) + " … " + num(b.Edges[k+1])
+		entries = append(entries, e)
+		widest = max(widest, lipgloss.Width(e))
+	}
+	title := st.PanelTitle.Render("Legend ") + st.Label.Render(what+", "+unit)
+	var body []string
+	whole = true
+	switch {
+	case n <= show:
+		body = entries
+	case (n+1)/2 <= show && 2*widest+2 <= w:
+		for i := 0; i < n; i += 2 {
+			l := pad(entries[i], widest+2)
+			if i+1 < n {
+				l += entries[i+1]
+			}
+			body = append(body, l)
+		}
+	default:
+		title += st.Label.Render(fmt.Sprintf(" %d/%d", show, n))
+		whole = false
+		for i := range show {
+			body = append(body, entries[i*(n-1)/max(show-1, 1)])
+		}
+	}
+	out := []string{truncate(title, w)}
+	for _, l := range body {
+		out = append(out, truncate(l, w))
 	}
 	for _, l := range crit {
 		out = append(out, st.Faint.Render(l))
 	}
-	return out
+	return out, whole
 }
 
 // swatch returns two cells in band k's colour and glyph.

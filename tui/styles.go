@@ -62,8 +62,8 @@ func DefaultStyles(r *lipgloss.Renderer) Styles {
 		FullSeparator:  r.NewStyle().Foreground(dim),
 	}
 	s.Table = table.Styles{
-		Header:   r.NewStyle().Bold(true).Foreground(accent).Padding(0, 1),
-		Cell:     r.NewStyle().Padding(0, 1),
+		Header:   r.NewStyle().Bold(true).Foreground(accent).PaddingLeft(1),
+		Cell:     r.NewStyle().PaddingLeft(1),
 		Selected: r.NewStyle().Reverse(true),
 	}
 	s.Signed, s.OneSigned, s.Field = mapview.DivergingPuOr(), mapview.SequentialViridis(), mapview.SequentialYlOrRd()

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"strings"
 	"testing"
+	"time"
 
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/lipgloss"
@@ -31,23 +32,45 @@ func keyMsg(s string) tea.KeyMsg {
 	return tea.KeyMsg{Type: tea.KeyRunes, Runes: []rune(s)}
 }
 
-// press applies keys in order. A command a key returns is run when it
-// answers at once with a jump or a settings change (never a pipeline run),
-// and its message is applied too.
+// press applies keys in order. The messages of a command a key returns
+// are applied when they come at once and are a jump or a settings change
+// (a pipeline run or a timer never answers at once, and is dropped).
 func press(t testing.TB, m Model, keys ...string) Model {
 	t.Helper()
 	for _, k := range keys {
 		next, cmd := m.Update(keyMsg(k))
 		m = next.(Model)
-		if cmd == nil {
-			continue
-		}
-		switch msg := cmd().(type) {
-		case jumpMsg, applyMsg:
-			m = update1(t, m, msg)
+		for _, msg := range quickMessages(cmd) {
+			switch msg.(type) {
+			case jumpMsg, applyMsg:
+				m = update1(t, m, msg)
+			}
 		}
 	}
 	return m
+}
+
+// quickMessages runs cmd and the commands of its batches, returning the
+// messages that arrive within a few milliseconds.
+func quickMessages(cmd tea.Cmd) []tea.Msg {
+	if cmd == nil {
+		return nil
+	}
+	done := make(chan tea.Msg, 1)
+	go func() { done <- cmd() }()
+	select {
+	case msg := <-done:
+		if b, ok := msg.(tea.BatchMsg); ok {
+			var out []tea.Msg
+			for _, c := range b {
+				out = append(out, quickMessages(c)...)
+			}
+			return out
+		}
+		return []tea.Msg{msg}
+	case <-time.After(20 * time.Millisecond):
+		return nil
+	}
 }
 
 func TestViewGolden(t *testing.T) {
@@ -85,6 +108,9 @@ func TestViewGolden(t *testing.T) {
 					m = press(t, m, sc.keys...)
 					out := m.View()
 					checkFits(t, out, size[0], size[1])
+					if m.showHelp && !strings.Contains(out, "╝") {
+						t.Error("the overlay's bottom edge is cut off")
+					}
 					golden(t, name+".golden", out)
 				})
 			}
@@ -149,5 +175,38 @@ func BenchmarkView(b *testing.B) {
 				_ = m.View()
 			}
 		})
+	}
+}
+
+// waitFor runs cmd and its batches' commands side by side and returns the
+// first message of type T to arrive within timeout.
+func waitFor[T tea.Msg](cmd tea.Cmd, timeout time.Duration) (T, bool) {
+	found := make(chan T, 1)
+	var run func(c tea.Cmd)
+	run = func(c tea.Cmd) {
+		if c == nil {
+			return
+		}
+		go func() {
+			switch msg := c().(type) {
+			case tea.BatchMsg:
+				for _, c := range msg {
+					run(c)
+				}
+			case T:
+				select {
+				case found <- msg:
+				default:
+				}
+			}
+		}()
+	}
+	run(cmd)
+	select {
+	case msg := <-found:
+		return msg, true
+	case <-time.After(timeout):
+		var zero T
+		return zero, false
 	}
 }

@@ -62,11 +62,13 @@ func TestRunDemo(t *testing.T) {
 	}
 	// The demo adds up to 12 mV of drift and 0.8 mV of noise; without drift
 	// correction the RMS difference must stay within that and the
-	// interpolation error between 2.5 m stations.
+	// interpolation error between 2.5 m stations. The source peaks stay in
+	// the fit (the spike check allows for their curvature): 7.7 mV measured;
+	// without them it was 15.8 mV.
 	rms := math.Sqrt(sum2 / float64(n))
 	t.Logf("RMS difference %.2f mV over %d nodes", rms, n)
-	if rms > 20 {
-		t.Errorf("demo grid RMS difference from the closed form = %.2f mV over %d nodes, want ≤ 20", rms, n)
+	if rms > 10 {
+		t.Errorf("demo grid RMS difference from the closed form = %.2f mV over %d nodes, want ≤ 10", rms, n)
 	}
 	if res.Analysis == nil || len(res.Analysis.Contours) == 0 {
 		t.Errorf("demo run gave no contours")

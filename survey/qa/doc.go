@@ -39,14 +39,34 @@
 //     thin-plate spline; Rippa's closed form of the leave-one-out error for
 //     the global fit, the local equivalent for large surveys) is fitted to
 //     one value per spot, over readings neither suspect nor excluded by
-//     hand. A reading whose leave-one-out residual r has a robust z =
-//     (r − median) / (1.4826 MAD · g) beyond Settings.SpikeK, and whose
-//     |r − median| / g also exceeds the repeat tolerance (no reading is a
-//     spike by less than the measurement repeats to), is a candidate. The
-//     gap factor g = max(1, (d/h)²), d the distance to the reading's
+//     hand. A reading's deviation is its leave-one-out residual r less the
+//     median residual, shrunk towards zero by its curvature allowance a:
+//     e = sign(r − median) · max(0, |r − median| − a). A reading whose
+//     robust z = e / (1.4826 MAD · g) is beyond Settings.SpikeK, and whose
+//     |e| / g also exceeds the repeat tolerance (no reading is a spike by
+//     less than the measurement repeats to), is a candidate.
+//
+//     The curvature allowance is the leave-one-out error the local bending
+//     of the surface explains: at a true extremum, the peak of the
+//     potential over an injection electrode or its minimum over a return
+//     electrode, the fit without the reading cannot know how far the peak
+//     rises and undershoots by about curvature × spacing², hundreds of
+//     millivolts on a survey whose noise is one. It is estimated WITHOUT
+//     the reading, from the Hessian of a least-squares quadratic through
+//     its 12 nearest spots, each curvature shrunk by two of its standard
+//     errors so that noise excuses nothing: a = F · ½ · max|λ| · ρ², ρ² the
+//     mean squared distance of its four nearest spots, F = 4 where the
+//     reading is above or below all its six nearest, 1 elsewhere. The
+//     factors are calibrated on the closed-form potential of a buried
+//     point source and cover grids up to about 1.35 times the source's
+//     depth; curvature.go gives the derivation, the measurements and the
+//     sources. It is worked out only for readings beyond the limits
+//     without it, a local fit of 12 spots each, so the check stays cheap
+//     on large surveys.
+//
+//     The gap factor g = max(1, (d/h)²), d the distance to the reading's
 //     nearest neighbour and h the survey's typical spacing, allows for the
-//     larger interpolation error expected in a gap or on a sharp peak
-//     sampled sparsely; on a regular grid g is 1.
+//     larger error expected in a gap; on a regular grid g is 1.
 //
 //     A candidate is marked suspect only when it stands alone. If one of
 //     its six nearest spots (within 2.5 times the typical spacing) is a

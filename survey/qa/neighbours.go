@@ -50,7 +50,7 @@ func (p places) Len() int                              { return len(p) }
 func (p places) Slice(start, end int) kdtree.Interface { return p[start:end] }
 func (p places) Pivot(d kdtree.Dim) int {
 	pl := plane{p, d}
-	return kdtree.Partition(pl, kdtree.MedianOfRandoms(pl, 100))
+	return kdtree.Partition(pl, kdtree.MedianOfMedians(pl))
 }
 
 // plane sorts places along one dimension.
@@ -127,19 +127,7 @@ func (n *neighbourIndex) nearest(k int) ([]int, []float64) {
 	if nb, ok := n.memo[k]; ok {
 		return nb, n.dist[k]
 	}
-	keep := kdtree.NewNKeeper(kNeighbours + 1)
-	n.tree.NearestSet(keep, place{n.spots[k].x, n.spots[k].y, k})
-	sort.Slice(keep.Heap, func(a, b int) bool { return keep.Heap[a].Dist < keep.Heap[b].Dist })
-	var nb []int
-	var d2 []float64
-	for _, c := range keep.Heap {
-		if c.Comparable == nil {
-			continue
-		}
-		if j := c.Comparable.(place).k; j != k {
-			nb, d2 = append(nb, j), append(d2, c.Dist)
-		}
-	}
+	nb, d2 := n.nearestN(k, kNeighbours)
 	n.memo[k], n.dist[k] = nb, d2
 	return nb, d2
 }
@@ -165,4 +153,43 @@ func (n *neighbourIndex) gapFactor(k int) float64 {
 		return 1
 	}
 	return max(1, n.nn2[k]/n.h2)
+}
+
+// nearestN returns the indexes of the m spots nearest to spot k, not
+// counting k itself, nearest first, and their squared distances. Spots at
+// equal distances come in index order, so that the answer is the same on
+// every run: gonum's k-d tree picks its pivots at random, and which of
+// several equally distant spots a bounded search keeps depends on the
+// tree. The search therefore runs twice: once for the distance of the
+// m-th nearest, once for every spot within that distance.
+func (n *neighbourIndex) nearestN(k, m int) ([]int, []float64) {
+	q := place{n.spots[k].x, n.spots[k].y, k}
+	keep := kdtree.NewNKeeper(m + 1)
+	n.tree.NearestSet(keep, q)
+	r := 0.0
+	for _, c := range keep.Heap {
+		if c.Comparable != nil {
+			r = math.Max(r, c.Dist)
+		}
+	}
+	within := kdtree.NewDistKeeper(r)
+	n.tree.NearestSet(within, q)
+	var found []kdtree.ComparableDist
+	for _, c := range within.Heap {
+		if c.Comparable != nil && c.Comparable.(place).k != k {
+			found = append(found, c)
+		}
+	}
+	sort.Slice(found, func(a, b int) bool {
+		if found[a].Dist != found[b].Dist {
+			return found[a].Dist < found[b].Dist
+		}
+		return found[a].Comparable.(place).k < found[b].Comparable.(place).k
+	})
+	found = found[:min(m, len(found))]
+	nb, d2 := make([]int, len(found)), make([]float64, len(found))
+	for i, c := range found {
+		nb[i], d2[i] = c.Comparable.(place).k, c.Dist
+	}
+	return nb, d2
 }

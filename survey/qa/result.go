@@ -105,7 +105,7 @@ type DriftCurve struct {
 type SpikeInfo struct {
 	Reading  int
 	Residual float64 // value minus the prediction without the reading
-	Z        float64 // robust z: (Residual − median) / (1.4826 MAD × gap factor), see the package doc
+	Z        float64 // robust z of the deviation beyond the curvature allowance: e / (1.4826 MAD × gap factor), see the package doc
 }
 
 // Conversion is a reference-electrode conversion applied to some readings.

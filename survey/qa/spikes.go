@@ -153,21 +153,20 @@ func median(v []float64) float64 {
 }
 
 // flag returns which spots are spikes given the residuals: candidates
-// whose residual is beyond both limits, unless one of their neighbours is a
-// candidate of the same sign deviating at least supportRatio as much (a
-// lone spike's neighbours pick up only a part of it, of either sign,
-// through the fit). Readings that disagree with
-// the fit together are a feature finer than the spacing (a real anomaly,
-// or too coarse a grid), not a lone bad reading; they are returned in
-// steep.
+// whose deviation beyond the curvature allowance (see unexplained) is beyond
+// both limits, unless one of their neighbours is a candidate of the same
+// sign deviating at least supportRatio as much (a lone spike's neighbours
+// pick up only a part of it, of either sign, through the fit). Readings
+// that disagree with the fit together are a feature finer than the
+// spacing (a real anomaly, or too coarse a grid), not a lone bad reading;
+// they are returned in steep.
 func (c *checker) flag(spots []spot, out []bool, resid []float64, nb *neighbourIndex) (next, steep []bool) {
 	med, scale := robust(resid, out)
 	c.res.SpikeScale = scale
-	dev := make([]float64, len(spots)) // signed deviation of candidates, else 0
-	for k := range spots {
-		d := (resid[k] - med) / nb.gapFactor(k)
-		if a := math.Abs(d); a > c.set.SpikeK*scale && a > c.set.RepeatTol {
-			dev[k] = d
+	dev, _ := c.unexplained(out, resid, nb, med, scale)
+	for k, d := range dev {
+		if a := math.Abs(d); a <= c.set.SpikeK*scale || a <= c.set.RepeatTol {
+			dev[k] = 0 // not a candidate
 		}
 	}
 	next, steep = make([]bool, len(spots)), make([]bool, len(spots))
@@ -186,15 +185,42 @@ func (c *checker) flag(spots []spot, out []bool, resid []float64, nb *neighbourI
 	return next, steep
 }
 
+// unexplained returns each spot's deviation from the median residual that
+// neither the local curvature nor a gap explains: the part of |resid − med|
+// beyond the spot's curvature allowance (see curvatureAllowance), with its
+// sign, divided by the gap factor. The allowance is worked out only where
+// the deviation over the gap factor is beyond both limits of the spike
+// check (below them the allowance could only shrink it further), which
+// keeps the check local and cheap: one least-squares fit through 12 spots
+// per candidate.
+func (c *checker) unexplained(out []bool, resid []float64, nb *neighbourIndex, med, scale float64) (dev, allow []float64) {
+	dev, allow = make([]float64, len(resid)), make([]float64, len(resid))
+	for k, r := range resid {
+		g := nb.gapFactor(k)
+		d := r - med
+		if a := math.Abs(d) / g; a > c.set.SpikeK*scale && a > c.set.RepeatTol {
+			allow[k] = nb.curvatureAllowance(k, out, scale)
+			d = math.Copysign(math.Max(0, math.Abs(d)-allow[k]), d)
+		}
+		dev[k] = d / g
+	}
+	return dev, allow
+}
+
 // markSpikes records residuals and z for every spot's readings and marks
-// the spikes suspect, largest |z| first in Result.Suspects.
+// the spikes suspect, largest |z| first in Result.Suspects; a suspect's
+// note states the curvature allowance where there was one.
 func (c *checker) markSpikes(spots []spot, out []bool, resid []float64, nb *neighbourIndex) {
 	med, scale := robust(resid, out)
 	c.res.SpikeScale = scale
+	dev, allow := c.unexplained(out, resid, nb, med, scale)
 	for k, p := range spots {
-		z := robustZ(resid[k]-med, scale*nb.gapFactor(k))
+		z := robustZ(dev[k], scale)
 		members := c.spotReadings(p.reading)
 		reason := fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, robust z %+.1f", resid[k], c.unit(), z)
+		if allow[k] > 0 {
+			reason = fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, of which local curvature explains up to %.3g %s, robust z %+.1f", resid[k], c.unit(), allow[k], c.unit(), z)
+		}
 		for _, i := range members {
 			c.res.Residual[i], c.res.Z[i] = resid[k], z
 			switch {

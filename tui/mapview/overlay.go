@@ -21,6 +21,7 @@ func (r *Renderer) overlays(d *Data, v View) {
 	if v.Layers&LayerArrows != 0 {
 		r.arrows(d, v)
 	}
+	flagged := v.Layers&(LayerReadings|LayerFlaggedReadings) != 0
 	for _, p := range d.Points {
 		var g rune
 		switch {
@@ -28,17 +29,36 @@ func (r *Renderer) overlays(d *Data, v View) {
 			g = glyphSuggestion
 		case p.Kind == KindReading && v.Layers&LayerReadings != 0:
 			g = glyphReading
-		case p.Kind == KindSuspect && v.Layers&LayerReadings != 0:
+		case p.Kind == KindSuspect && flagged:
 			g = glyphSuspect
-		case p.Kind == KindExcluded && v.Layers&LayerReadings != 0:
+		case p.Kind == KindExcluded && flagged:
 			g = glyphExcluded
 		default:
 			continue
 		}
 		if c, row, ok := v.Cell(p.X, p.Y); ok {
-			r.cells[row*v.Width+c].over = g
+			if i := row*v.Width + c; pointRank(g) >= pointRank(r.cells[i].over) {
+				r.cells[i].over = g
+			}
 		}
 	}
+}
+
+// pointRank orders the marks that share a cell: a suspect shows over an
+// exclusion, which shows over a suggestion, over a plain reading, over
+// the line and arrow glyphs.
+func pointRank(g rune) int {
+	switch g {
+	case glyphSuspect:
+		return 4
+	case glyphExcluded:
+		return 3
+	case glyphSuggestion:
+		return 2
+	case glyphReading:
+		return 1
+	}
+	return 0
 }
 
 // potAt returns the potential band of the node under cell i, or -1.

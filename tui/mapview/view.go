@@ -18,10 +18,11 @@ const (
 	LayerArrows                         // field arrows on a coarse sub-grid
 	LayerSuggestions                    // infill suggestions
 	LayerContours                       // lines at band edges
+	LayerFlaggedReadings                // suspect and excluded readings, also without LayerReadings
 )
 
 // DefaultLayers are on when a map opens.
-const DefaultLayers = LayerBands | LayerZones | LayerReadings | LayerSuggestions
+const DefaultLayers = LayerBands | LayerZones | LayerReadings | LayerFlaggedReadings | LayerSuggestions
 
 // View places the map on the screen. See the package doc for the geometry.
 type View struct {

@@ -1,0 +1,51 @@
+package tui
+
+import (
+	"fmt"
+	"strings"
+	"testing"
+
+	"isofield/survey/criteria"
+)
+
+// TestCautionsComplete opens the help of every preset at 80×24 and
+// 120×40, with the export key on: the keys overlay is whole, and every
+// caution of the preset (criteria.Cautions) is shown in full, beside the
+// keys or on the page a second ? opens.
+func TestCautionsComplete(t *testing.T) {
+	for _, preset := range criteria.Presets() {
+		for _, size := range [][2]int{{80, 24}, {120, 40}} {
+			t.Run(fmt.Sprintf("%s %dx%d", preset, size[0], size[1]), func(t *testing.T) {
+				cfg := fixtureConfig()
+				cfg.Criteria.Preset = preset
+				m := New(cfg, Options{Title: "site-a.csv", ExportDir: t.TempDir()}, DefaultKeyMap(), testStyles(false))
+				m.gen = 1
+				m = update1(t, m, resultMsg{gen: 1, res: fixtureResult()})
+				m = m.resize(size[0], size[1])
+				m = press(t, m, "?")
+				screens := m.View()
+				if !strings.Contains(screens, "╝") || !strings.Contains(screens, "export") {
+					t.Errorf("keys overlay cut off or without the export key:\n%s", screens)
+				}
+				if !m.cautionsFit() {
+					screens += press(t, m, "?").View()
+				}
+				flat := flatten(screens)
+				for _, c := range criteria.Cautions(preset) {
+					if !strings.Contains(flat, flatten(c)) {
+						t.Errorf("caution not shown in full: %q", c)
+					}
+				}
+				if strings.Contains(flat, "taller terminal") {
+					t.Error("cautions cut short")
+				}
+			})
+		}
+	}
+}
+
+// flatten drops the overlay's borders and joins wrapped lines.
+func flatten(s string) string {
+	s = strings.NewReplacer("║", " ", "•", " ").Replace(s)
+	return strings.Join(strings.Fields(s), " ")
+}
