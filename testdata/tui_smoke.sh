@@ -3,7 +3,10 @@
 # open a survey, move the cursor, toggle layers, jump to a zone, exclude a
 # reading, change the contour interval, quit. It checks each screen with
 # capture-pane, that the session file holds the edit, that the input file
-# is unchanged and that the terminal left the alternate screen.
+# is unchanged and that the terminal left the alternate screen. Then it
+# opens the built-in demo at 80×24 under NO_COLOR: it prints how long the
+# first map took, moves the cursor while the full grid is computed, checks
+# that no colour reaches the screen and pages through the help.
 #
 # Usage: testdata/tui_smoke.sh (from the module root). Needs tmux; exits 0
 # with a note when tmux is missing. The survey is invented: two point
@@ -76,8 +79,10 @@ wait_idle() {
 tmux -L "$sock" new-session -d -s "$session" -x 100 -y 30 \
 	"cd '$work' && TERM=xterm-256color ./isofield view --threshold 300 yard.csv; echo ISOFIELD_DONE rc=\$?; sleep 60"
 
-# Open: the map, the readout and the legend appear.
+# Open: the map, the readout and the legend appear, in colour.
 wait_idle 90
+esc=$(printf '\033')
+tmux -L "$sock" capture-pane -e -p -t "$session" | grep -q "$esc\[[0-9;]*[34]8;" || fail "no colour without NO_COLOR"
 screen | grep -q "At cursor" || fail "no readout"
 screen | grep -q "Legend" || fail "no legend"
 screen | grep -q "N↑" || fail "no north arrow and scale"
@@ -131,4 +136,30 @@ alt=$(tmux -L "$sock" display -p -t "$session" '#{alternate_on}')
 [ "$alt" = "0" ] || fail "terminal still on the alternate screen"
 after=$(sha256sum "$work/yard.csv" | cut -d' ' -f1)
 [ "$before" = "$after" ] || fail "the input file changed"
+tmux -L "$sock" kill-session -t "$session"
+
+# The demo at 80×24 with NO_COLOR: the first map appears quickly (the
+# figure is printed; more than 5 s fails), keys answer while the full grid
+# is computed, and no colour escape reaches the screen.
+start=$(date +%s%N)
+tmux -L "$sock" new-session -d -s "$session" -x 80 -y 24 \
+	"cd '$work' && NO_COLOR=1 TERM=xterm-256color ./isofield; echo ISOFIELD_DONE rc=\$?; sleep 60"
+wait_for "At cursor" 10
+ms=$((($(date +%s%N) - start) / 1000000))
+echo "tui_smoke: demo's first map after $ms ms (80x24, process start included)"
+[ "$ms" -le 5000 ] || fail "the demo's first map took $ms ms"
+pos0=$(screen | grep "x,y" | head -1)
+send l
+sleep 0.3
+[ "$pos0" != "$(screen | grep "x,y" | head -1)" ] || fail "the cursor did not move while gridding"
+wait_idle 30
+if tmux -L "$sock" capture-pane -e -p -t "$session" | grep -q "$esc\[[0-9;]*[34]8;"; then
+	fail "colour on the screen despite NO_COLOR"
+fi
+send "?"
+wait_for "Keys" 5
+send "?"
+wait_for "Cautions" 5
+send q
+wait_for "ISOFIELD_DONE rc=0" 10
 echo "tui_smoke: ok"

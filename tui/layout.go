@@ -9,6 +9,7 @@ import (
 	"github.com/charmbracelet/lipgloss"
 
 	"isofield/survey/criteria"
+	"isofield/tui/mapview"
 )
 
 // Rows taken by the status line, the message line and the help line.
@@ -226,27 +227,73 @@ func (m Model) messageLine() string {
 	return ""
 }
 
-// helpOverlay is the full key help followed, when they fit, by the
-// cautions of the preset; otherwise the cautions are a page of their own.
+// helpOverlay draws the help page on show.
 func (m Model) helpOverlay() string {
-	if m.cautions {
-		return m.styles.Overlay.Render(strings.Join(m.cautionLines(min(m.width-4, 100), m.height-chromeRows-2), "\n"))
-	}
-	keys := m.keysHelp()
-	body := m.styles.PanelTitle.Render("Keys") + "\n" + keys
-	if m.cautionsFit() {
-		body += "\n\n" + strings.Join(m.cautionLines(max(lipgloss.Width(keys), 40), 1000), "\n")
-	} else {
-		body += "\n\n" + m.styles.Warn.Render("? again: cautions")
-	}
-	return m.styles.Overlay.Render(body)
+	pages := m.helpPages()
+	p := pages[min(m.helpPage, len(pages)-1)]
+	return m.styles.Overlay.Render(strings.Join(p, "\n"))
 }
 
-func (m Model) keysHelp() string {
+// helpPages packs the help's parts (the keys, the marks on the map, the
+// preset's cautions) into as few pages as the terminal's height allows,
+// in that order; each page but the last ends with a line saying what ?
+// shows next. A part taller than a page is cut with a note.
+func (m Model) helpPages() [][]string {
+	avail := max(m.height-chromeRows-2, 4) // the overlay's border takes 2
+	w := min(m.width-4, 100)
+	names := []string{"keys", "marks", "cautions"}
+	parts := [][]string{m.keysLines(), m.markLines(w), m.cautionLines(w, avail)}
+	var pages [][]string
+	var first []int // index of each page's first part
+	var cur []string
+	for i, p := range parts {
+		hint := 0
+		if i < len(parts)-1 {
+			hint = 2 // a blank line and "? next: …", should a page follow
+		}
+		if len(cur) > 0 && len(cur)+1+len(p)+hint > avail {
+			pages, cur = append(pages, cur), nil
+		}
+		if len(cur) == 0 {
+			first = append(first, i)
+			if len(p)+hint > avail {
+				p = append(p[:max(avail-hint-1, 1)], m.styles.Faint.Render("… (a taller terminal shows the rest)"))
+			}
+			cur = p
+			continue
+		}
+		cur = append(append(cur, ""), p...)
+	}
+	pages = append(pages, cur)
+	for k := range len(pages) - 1 {
+		next := strings.Join(names[first[k+1]:min(len(names), nextFirst(first, k+2, len(names)))], " and ")
+		pages[k] = append(pages[k], "", m.styles.Warn.Render("? next: "+next))
+	}
+	return pages
+}
+
+func nextFirst(first []int, k, n int) int {
+	if k < len(first) {
+		return first[k]
+	}
+	return n
+}
+
+func (m Model) keysLines() []string {
 	h := m.help
 	h.ShowAll = true
 	h.Width = m.width - 6
-	return packHelp(h, m.keys.FullHelp())
+	return append([]string{m.styles.PanelTitle.Render("Keys")}, strings.Split(packHelp(h, m.keys.FullHelp()), "\n")...)
+}
+
+// markLines explains the map's overlay glyphs in lines of w cells.
+func (m Model) markLines(w int) []string {
+	var ps []string
+	for _, mk := range mapview.Marks() {
+		// No-break spaces keep each glyph with its meaning on one line.
+		ps = append(ps, strings.ReplaceAll(mk[0]+" "+mk[1], " ", "\u00a0"))
+	}
+	return append([]string{m.styles.PanelTitle.Render("Marks on the map")}, wrap(strings.Join(ps, "   "), w)...)
 }
 
 // cautionLines returns the cautions wrapped to w cells, at most n lines.
@@ -263,13 +310,6 @@ func (m Model) cautionLines(w, n int) []string {
 		lines = append(lines[:n-1], m.styles.Faint.Render("… (a taller terminal shows the rest)"))
 	}
 	return lines
-}
-
-// cautionsFit reports whether the cautions fit under the keys.
-func (m Model) cautionsFit() bool {
-	keys := m.keysHelp()
-	need := lipgloss.Height(keys) + 1 + 2 + len(m.cautionLines(max(lipgloss.Width(keys), 40), 1000)) + 2
-	return need <= m.height-chromeRows
 }
 
 // packHelp renders the help groups side by side in as few blocks as fit

@@ -65,7 +65,7 @@ type Model struct {
 
 	focus    focus
 	showHelp bool
-	cautions bool // the help shows the cautions page
+	helpPage int // the help page on show (see helpPages)
 	marks    [2]*[2]float64
 	nextMark int
 
@@ -297,19 +297,19 @@ func (m Model) onKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 	case typing:
 		return m.routeKey(msg)
 	case key.Matches(msg, m.keys.Help):
-		// ? opens the keys; when the cautions did not fit beside them, a
-		// second ? shows them on their own page; then ? closes.
+		// ? opens the help's first page, steps through the others, then
+		// closes.
 		switch {
 		case !m.showHelp:
-			m.showHelp, m.cautions = true, false
-		case !m.cautions && !m.cautionsFit():
-			m.cautions = true
+			m.showHelp, m.helpPage = true, 0
+		case m.helpPage+1 < len(m.helpPages()):
+			m.helpPage++
 		default:
-			m.showHelp, m.cautions = false, false
+			m.showHelp, m.helpPage = false, 0
 		}
 		return m, nil
 	case key.Matches(msg, m.keys.Back):
-		m.showHelp, m.cautions, m.focus = false, false, focusMap
+		m.showHelp, m.helpPage, m.focus = false, 0, focusMap
 		return m, nil
 	case key.Matches(msg, m.keys.Cancel) && m.running:
 		m.cancel()

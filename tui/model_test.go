@@ -3,6 +3,7 @@ package tui
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 	"time"
 
@@ -143,9 +144,9 @@ func TestScreenKeys(t *testing.T) {
 				t.Error("help not shown")
 			}
 		}},
-		{"? twice shows the cautions (they do not fit at 80×24)", []string{"?", "?"}, func(t *testing.T, m Model) {
-			if !m.showHelp || !m.cautions {
-				t.Errorf("help %v cautions %v, want the cautions page", m.showHelp, m.cautions)
+		{"? twice shows the marks and cautions (they do not fit beside the keys at 80×24)", []string{"?", "?"}, func(t *testing.T, m Model) {
+			if v := m.View(); !m.showHelp || m.helpPage != 1 || !strings.Contains(v, "Cautions") || !strings.Contains(v, "Marks") {
+				t.Errorf("help %v page %d, want the second page with marks and cautions:\n%s", m.showHelp, m.helpPage, v)
 			}
 		}},
 		{"? thrice closes", []string{"?", "?", "?"}, func(t *testing.T, m Model) {

@@ -58,12 +58,12 @@ func (r readingsTable) SetSize(w, h int) readingsTable {
 	r.table.SetRows(nil) // each setter below redraws the rows it holds
 	r.table.SetColumns(r.columns())
 	r.table.SetWidth(w)
-	r.table.SetHeight(max(h-1, 3)) // under the title line; the header takes one
+	r.table.SetHeight(max(h-2, 3)) // between the title and the detail line; the header takes one
 	return r.moveTo(r.cursor)
 }
 
 // visibleRows is the number of rows on screen.
-func (r readingsTable) visibleRows() int { return max(r.height-2, 1) }
+func (r readingsTable) visibleRows() int { return max(r.height-3, 2) }
 
 // Column numbers of readingColumns.
 const (
@@ -449,5 +449,20 @@ func (r readingsTable) View() string {
 	dir := map[bool]string{false: "ascending", true: "descending"}[r.desc]
 	title := st.PanelTitle.Render("Readings") + st.Label.Render(fmt.Sprintf("  %d, %d suspect, %d excluded · by %s, %s · row %d of %d",
 		n, r.stats.sus, r.stats.exc, readingColumns()[r.sortCol], dir, min(r.cursor+1, n), n))
-	return truncate(title, r.width) + "\n" + r.table.View()
+	return truncate(title, r.width) + "\n" + r.table.View() + "\n" + r.detail()
+}
+
+// detail is the line under the table: the selected reading's whole QA
+// note, which the reason column may cut.
+func (r readingsTable) detail() string {
+	i := r.Selected()
+	if i < 0 {
+		return ""
+	}
+	note := r.cell(i, colReason)
+	if note == "" {
+		note = "no QA note"
+	}
+	rd := r.res.Survey.Readings[i]
+	return truncate(r.styles.Label.Render(fmt.Sprintf("%s (line %d): %s", rd.ID, rd.Line0, note)), r.width)
 }

@@ -131,10 +131,11 @@ func (p sidePane) legend(sc *scene, mp mapPane, w, room int) (lines []string, wh
 	if mp.view.Layers&mapview.LayerField != 0 {
 		unit, what = sc.unit+"/m", "field |E|"
 	}
-	crit := wrap(sc.criterion, w)
-	crit = crit[:min(len(crit), 3, max(room-3, 0))]
-	show := max(room-1-len(crit), 1)
 	n := b.N()
+	crit := wrap(sc.criterion, w)
+	// The criterion gets the lines the bands leave, at least three.
+	crit = crit[:min(len(crit), max(room-1-n, 3), max(room-3, 0))]
+	show := max(room-1-len(crit), 1)
 	entries := make([]string, 0, n)
 	widest := 0
 	for k := n - 1; k >= 0; k-- {

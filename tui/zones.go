@@ -96,7 +96,7 @@ func (z zoneList) View() string {
 	if len(z.zones) == 0 {
 		lines = append(lines, st.Faint.Render("no flagged zones: set a field threshold in settings (s)"))
 	}
-	rows := max((z.height-fh-1)/2, 1) // two lines per zone
+	rows := max((z.height-fh-1)/3, 1) // three lines per zone
 	first := max(z.cursor-rows+1, 0)
 	for i := first; i < len(z.zones) && i < first+rows; i++ {
 		s := z.zones[i]
@@ -104,12 +104,18 @@ func (z zoneList) View() string {
 		if i == z.cursor {
 			mark = "▶ "
 		}
-		l1 := truncate(fmt.Sprintf("%s#%d  peak %s %s  %s", mark, s.Rank, num(s.Peak), s.Unit, s.Label), w)
-		l2 := truncate(fmt.Sprintf("    %s m² at %.1f, %.1f", num(s.Area), s.PeakX, s.PeakY), w)
-		if i == z.cursor {
-			l1, l2 = st.Selected.Render(pad(l1, w)), st.Selected.Render(pad(l2, w))
+		ls := []string{
+			fmt.Sprintf("%s#%d peak %s %s", mark, s.Rank, num(s.Peak), s.Unit),
+			strings.TrimRight(fmt.Sprintf("   %s m²  %s", num(s.Area), s.Label), " "),
+			fmt.Sprintf("   at %s, %s", fixed(s.PeakX), fixed(s.PeakY)),
 		}
-		lines = append(lines, l1, l2)
+		for _, l := range ls {
+			l = truncate(l, w)
+			if i == z.cursor {
+				l = st.Selected.Render(pad(l, w))
+			}
+			lines = append(lines, l)
+		}
 	}
 	return st.Panel.Width(w + st.Panel.GetHorizontalPadding()).Height(max(z.height-fh, 1)).Render(strings.Join(lines, "\n"))
 }

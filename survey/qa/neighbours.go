@@ -50,7 +50,7 @@ func (p places) Len() int                              { return len(p) }
 func (p places) Slice(start, end int) kdtree.Interface { return p[start:end] }
 func (p places) Pivot(d kdtree.Dim) int {
 	pl := plane{p, d}
-	return kdtree.Partition(pl, kdtree.MedianOfMedians(pl))
+	return kdtree.Partition(pl, kdtree.MedianOfRandoms(pl, 100))
 }
 
 // plane sorts places along one dimension.

@@ -47,7 +47,7 @@ func TestSourcePeaksNotSpikes(t *testing.T) {
 		s          *survey.Survey
 		set        Settings
 		wantMarked []string // exactly these ids marked as spikes
-		notMarked  []string // the source peaks, named for the reader
+		notMarked  []string // the source peaks, which must be there and not marked
 	}{
 		{"demo, drift corrected on BASE", demo.Survey(), Settings{Base: demo.BaseID},
 			[]string{"L14-S03"}, []string{"L09-S07", "L04-S19", "L05-S20"}},
@@ -68,10 +68,17 @@ func TestSourcePeaksNotSpikes(t *testing.T) {
 			for _, sp := range r.Suspects {
 				spike[sp.Reading] = true
 			}
+			seen := map[string]bool{}
 			for i, rd := range tt.s.Readings {
+				seen[rd.ID] = true
 				if got := spike[i]; got != want[rd.ID] {
 					t.Errorf("%s: suspect = %v, want %v (residual %+.4g, z %+.3g, notes %q)",
 						ReadingName(tt.s, i), got, want[rd.ID], r.Residual[i], r.Z[i], r.Notes[i])
+				}
+			}
+			for _, id := range append(tt.wantMarked, tt.notMarked...) {
+				if !seen[id] {
+					t.Errorf("no reading %s in the survey", id)
 				}
 			}
 		})

@@ -60,3 +60,14 @@ func arrowGlyph(ex, ey float64) rune {
 	arrows := [8]rune{'→', '↗', '↑', '↖', '←', '↙', '↓', '↘'}
 	return arrows[o]
 }
+
+// Marks lists the overlay glyphs with what each marks, for a key.
+func Marks() [][2]string {
+	return [][2]string{
+		{string(glyphCursor), "cursor"}, {string(glyphReading), "reading"},
+		{string(glyphSuspect), "suspect"}, {string(glyphExcluded), "excluded"},
+		{string(glyphSuggestion), "infill point"}, {string(glyphZoneEdge), "zone edge"},
+		{string(glyphContourV) + " " + string(glyphContourH), "band edge"}, {string(glyphZeroLine), "zero line"},
+		{string(glyphMarkA) + " " + string(glyphMarkB), "profile ends"}, {"→", "field direction"},
+	}
+}

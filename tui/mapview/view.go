@@ -11,14 +11,14 @@ type Layers uint16
 
 // The layers, each toggled by its own key in the UI.
 const (
-	LayerBands       Layers = 1 << iota // potential bands
-	LayerField                          // field magnitude bands (replaces the potential bands)
-	LayerZones                          // outlines of flagged zones
-	LayerReadings                       // readings, suspects and exclusions
-	LayerArrows                         // field arrows on a coarse sub-grid
-	LayerSuggestions                    // infill suggestions
-	LayerContours                       // lines at band edges
-	LayerFlaggedReadings                // suspect and excluded readings, also without LayerReadings
+	LayerBands           Layers = 1 << iota // potential bands
+	LayerField                              // field magnitude bands (replaces the potential bands)
+	LayerZones                              // outlines of flagged zones
+	LayerReadings                           // readings, suspects and exclusions
+	LayerArrows                             // field arrows on a coarse sub-grid
+	LayerSuggestions                        // infill suggestions
+	LayerContours                           // lines at band edges
+	LayerFlaggedReadings                    // suspect and excluded readings, also without LayerReadings
 )
 
 // DefaultLayers are on when a map opens.
