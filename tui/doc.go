@@ -11,7 +11,17 @@
 // sidePane (readout and legend), zoneList, readingsTable, profileView and
 // settingsForm. The root handles the global keys, sizes every child and
 // routes other keys to the focused one. All keys live in one KeyMap, which
-// is also the help; all styles in one Styles, passed in.
+// is also the help: the short help line shows the focused screen's keys,
+// as many as fit the width; ? pages through the keys, the marks on the map
+// and the preset's cautions, packed into as few pages as the height
+// allows. All styles live in one Styles, passed in. Text entry and the
+// progress bar are Bubbles' textinput and progress.
+//
+// Size. Surveys reach 10⁶ readings: the scene (map data, reading index,
+// the readings' counts and column widths) is derived in the background
+// command; the readings table sorts an index slice on values and hands
+// the Bubbles table only the rows on screen; when readings would crowd
+// the map, it opens with only suspect and excluded readings marked.
 //
 // Data. A pipeline.Result becomes a scene once, when it arrives: map data
 // with per-node bands, zones, reading and suggestion marks, criterion and

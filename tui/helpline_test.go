@@ -58,3 +58,25 @@ func TestHelpLineFits(t *testing.T) {
 		}
 	}
 }
+
+// TestSmallTerminals draws every screen on terminals smaller than the
+// 80×24 the layout is made for: nothing may fail while drawing, and no
+// line may be wider than the terminal.
+func TestSmallTerminals(t *testing.T) {
+	for _, keys := range [][]string{nil, {"z"}, {"t"}, {"p"}, {"s"}, {"?"}, {"?", "?"}, {"t", "x"}} {
+		base := press(t, readyModel(t, 80, 24, true), keys...)
+		for _, size := range [][2]int{{20, 8}, {40, 12}, {60, 16}, {79, 23}} {
+			m := base.resize(size[0], size[1])
+			out := m.View()
+			if strings.Contains(out, "internal error") {
+				t.Fatalf("keys %v at %dx%d: %s", keys, size[0], size[1], out)
+			}
+			for i, l := range strings.Split(out, "\n") {
+				if lw := lipgloss.Width(l); lw > size[0] {
+					t.Errorf("keys %v at %dx%d: line %d is %d cells wide", keys, size[0], size[1], i, lw)
+					break
+				}
+			}
+		}
+	}
+}

@@ -7,6 +7,7 @@ import (
 	"github.com/charmbracelet/bubbles/help"
 	"github.com/charmbracelet/bubbles/key"
 	"github.com/charmbracelet/lipgloss"
+	"github.com/charmbracelet/x/ansi"
 
 	"isofield/survey/criteria"
 	"isofield/tui/mapview"
@@ -66,7 +67,24 @@ func (m Model) View() (out string) {
 		body = m.centre(m.helpOverlay())
 	}
 	body = fitHeight(body, m.height-chromeRows)
-	return m.statusLine() + "\n" + body + "\n" + m.messageLine() + "\n" + m.helpLine()
+	out = m.statusLine() + "\n" + body + "\n" + m.messageLine() + "\n" + m.helpLine()
+	if m.width < designWidth {
+		out = clipLines(out, m.width)
+	}
+	return out
+}
+
+// designWidth is the narrowest terminal the layout is made for; on a
+// narrower one each line is cut at the edge.
+const designWidth = 80
+
+// clipLines cuts every line of s to w cells.
+func clipLines(s string, w int) string {
+	ls := strings.Split(s, "\n")
+	for i, l := range ls {
+		ls[i] = ansi.Truncate(l, w, "")
+	}
+	return strings.Join(ls, "\n")
 }
 
 // helpLine is the short help of the focused screen, as many keys as fit

@@ -9,6 +9,7 @@ import (
 	"context"
 	"fmt"
 	"math"
+	"slices"
 
 	"isofield/interp"
 	"isofield/survey"
@@ -93,7 +94,7 @@ func Run(ctx context.Context, cfg Config, progress Progress) (*Result, error) {
 	// The preset may ask the checks for a reference scale (concrete, cp)
 	// and learns whether they scale to a fault current (grounding).
 	res.Notes = append(res.Notes, criteria.Link(&cfg.Criteria, &cfg.QA)...)
-	q, err := qa.Run(s, cfg.QA, cfg.Edits)
+	q, err := qa.RunProgress(ctx, s, cfg.QA, cfg.Edits, func(d, t int) { progress(StageCheck, frac(d, t)) })
 	if err != nil {
 		return nil, err
 	}
@@ -118,9 +119,11 @@ func Run(ctx context.Context, cfg Config, progress Progress) (*Result, error) {
 	fitOpt := cfg.Fit
 	fitOpt.Progress = func(d, t int) { progress(StageFit, frac(d, t)) }
 	progress(StageFit, 0)
-	m, err := interp.Fit(ctx, xs, ys, vs, fitOpt)
-	if err != nil {
-		return nil, fmt.Errorf("fitting %d readings: %w", len(xs), err)
+	m := reuseSpikeFit(q, xs, ys, vs, cfg.Fit)
+	if m == nil {
+		if m, err = interp.Fit(ctx, xs, ys, vs, fitOpt); err != nil {
+			return nil, fmt.Errorf("fitting %d readings: %w", len(xs), err)
+		}
 	}
 	res.Model = m
 	g, err := newGrid(xs, ys, cfg)
@@ -152,6 +155,28 @@ func Run(ctx context.Context, cfg Config, progress Progress) (*Result, error) {
 	res.Analysis = a
 	progress(StageAnalyse, 1)
 	return res, nil
+}
+
+// reuseSpikeFit returns the checking stage's last spike-check fit when it
+// was made over exactly the positions and values to grid with the options
+// the grid would use (the default thin-plate spline), else nil. On large
+// surveys this saves a whole fit.
+func reuseSpikeFit(q *qa.Result, xs, ys, vs []float64, o interp.Options) *interp.Model {
+	if q.SpikeModel == nil || !defaultFit(o) {
+		return nil
+	}
+	if !slices.Equal(xs, q.SpikeX) || !slices.Equal(ys, q.SpikeY) || !slices.Equal(vs, q.SpikeV) {
+		return nil
+	}
+	return q.SpikeModel
+}
+
+// defaultFit reports whether o fits as interp.Options{} does, which is
+// what the spike check uses.
+func defaultFit(o interp.Options) bool {
+	shapeOK := !o.Kernel.HasShape() || (!o.AutoShape && o.Shape == 0)
+	return o.Kernel == interp.ThinPlate && o.Method == interp.Auto && o.LocalAbove == 0 &&
+		o.Smoothing == 0 && !o.AutoSmoothing && shapeOK
 }
 
 func frac(d, t int) float64 {

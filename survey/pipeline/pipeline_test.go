@@ -5,6 +5,7 @@ import (
 	"math"
 	"testing"
 
+	"isofield/interp"
 	"isofield/survey/demo"
 )
 
@@ -72,5 +73,39 @@ func TestRunDemo(t *testing.T) {
 	}
 	if res.Analysis == nil || len(res.Analysis.Contours) == 0 {
 		t.Errorf("demo run gave no contours")
+	}
+}
+
+// TestReuseSpikeFit checks that the grid reuses the checking stage's fit
+// only when it was made over the same values with the same options, and
+// that the reused surface is the one a fresh fit gives.
+func TestReuseSpikeFit(t *testing.T) {
+	ctx := context.Background()
+	res, err := Run(ctx, Config{Survey: demo.Survey()}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Model != res.QA.SpikeModel {
+		t.Errorf("default options: grid fit not reused from the spike check")
+	}
+	var xs, ys, vs []float64
+	for _, i := range res.Used {
+		xs, ys, vs = append(xs, res.Survey.Readings[i].X), append(ys, res.Survey.Readings[i].Y), append(vs, res.Values[i])
+	}
+	fresh, err := interp.Fit(ctx, xs, ys, vs, interp.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range [][2]float64{{5, 5}, {18, 22}, {31.3, 17.7}, {59, 39}} {
+		if a, b := res.Model.Value(p[0], p[1]), fresh.Value(p[0], p[1]); math.Abs(a-b) > 1e-9*(1+math.Abs(b)) {
+			t.Errorf("reused fit at %v = %g, fresh fit = %g", p, a, b)
+		}
+	}
+	cubic, err := Run(ctx, Config{Survey: demo.Survey(), Fit: interp.Options{Kernel: interp.Cubic}}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if cubic.Model == cubic.QA.SpikeModel {
+		t.Errorf("cubic kernel: the spike check's thin-plate fit was reused")
 	}
 }

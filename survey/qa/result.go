@@ -152,6 +152,13 @@ type Result struct {
 	// SpikeScale is the robust scale 1.4826 MAD of the residuals.
 	SpikeScale float64
 	Fit        *interp.FitInfo
+	// SpikeModel is the spike check's last fit (thin-plate spline, default
+	// options) over the positions and values SpikeX, SpikeY, SpikeV: one
+	// value per spot not marked out. A caller that grids exactly these
+	// values with the same options may use it instead of fitting again.
+	// nil when the spike check did not run.
+	SpikeModel             *interp.Model
+	SpikeX, SpikeY, SpikeV []float64
 	// Conversions lists reference conversions and Scalings the current
 	// scalings applied, one entry per distinct test current.
 	Conversions []Conversion

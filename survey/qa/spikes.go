@@ -105,6 +105,7 @@ func (c *checker) residuals(ctx context.Context, spots []spot, out []bool) ([]fl
 	if err != nil {
 		return nil, nil, fmt.Errorf("fitting %d spots: %w", len(xs), err)
 	}
+	c.res.SpikeModel, c.res.SpikeX, c.res.SpikeY, c.res.SpikeV = m, xs, ys, vs
 	loo := m.LeaveOneOut()
 	if len(loo) != len(xs) {
 		return nil, nil, errors.New("the fit gave no leave-one-out residuals")
