@@ -47,6 +47,11 @@ type Options struct {
 	// the kernel's default). AutoShape picks it by leave-one-out.
 	Shape     float64
 	AutoShape bool
+	// LeaveOneOut asks the fit to compute the leave-one-out errors as it
+	// goes, for a caller that will call Model.LeaveOneOut: the local method
+	// then reuses each patch's factorisation instead of building and
+	// factorising every patch again. It changes no result.
+	LeaveOneOut bool
 	// LocalAbove is the reading count above which Auto uses the local
 	// method; 0 means DefaultLocalAbove.
 	LocalAbove int

@@ -17,7 +17,7 @@ const (
 // which its weight vanishes, so that wherever its weight is felt the
 // point lies well inside the readings it was fitted to, and the local
 // fit's larger error near its own edge never enters the blend.
-const fitMargin = 1.5
+const fitMargin = 2
 
 // lattice is the regular layout of patch centres over the readings'
 // bounding box (scaled coordinates): na × nb cells of hx × hy, one patch

@@ -16,12 +16,34 @@ import (
 //
 // the weights being those of the fit. A reading no disk covers gets NaN.
 func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) {
+	if lf.ej == nil {
+		if err := lf.refitErrors(ds, plan); err != nil {
+			return nil, err
+		}
+	}
+	return lf.blendErrors(ds, lf.ej), nil
+}
+
+// patchErrors stores the patch leave-one-out errors e_jk = c_jk/(A_j⁻¹)_kk
+// of patch p, whose system sys was just factorised and solved (the
+// factorisation is consumed).
+func (lf *localFit) patchErrors(p *patch, sys *smallSystem) {
+	m := int(p.hi - p.lo)
+	sys.diag = grow(sys.diag, m)
+	sys.work = sys.inverseDiag(sys.diag, sys.work)
+	for i := 0; i < m; i++ {
+		lf.ej[int(p.lo)+i] = lf.coef[int(p.lo)+i] / sys.diag[i]
+	}
+}
+
+// refitErrors computes lf.ej for a fit made without Options.LeaveOneOut,
+// by building and factorising every patch's system again.
+func (lf *localFit) refitErrors(ds *dataset, plan localPlan) error {
 	ej := make([]float64, len(lf.px))
 	var next atomic.Int64
 	var failed atomic.Bool
 	parallelRange(2*len(lf.patches), func(_, _ int) {
 		var sys smallSystem
-		var diag, scratch []float64
 		for {
 			j := int(next.Add(1) - 1)
 			if j >= len(lf.patches) || failed.Load() {
@@ -38,16 +60,23 @@ func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) 
 				failed.Store(true)
 				return
 			}
-			diag = grow(diag, m)
-			scratch = sys.inverseDiag(diag, scratch)
+			sys.diag = grow(sys.diag, m)
+			sys.work = sys.inverseDiag(sys.diag, sys.work)
 			for i := 0; i < m; i++ {
-				ej[int(p.lo)+i] = lf.coef[int(p.lo)+i] / diag[i]
+				ej[int(p.lo)+i] = lf.coef[int(p.lo)+i] / sys.diag[i]
 			}
 		}
 	})
 	if failed.Load() {
-		return nil, ErrIllConditioned
+		return ErrIllConditioned
 	}
+	lf.ej = ej
+	return nil
+}
+
+// blendErrors blends the patch errors ej with the fit's weights into one
+// leave-one-out error per merged reading.
+func (lf *localFit) blendErrors(ds *dataset, ej []float64) []float64 {
 	num := make([]float64, len(ds.x))
 	den := make([]float64, len(ds.x))
 	for j := range lf.patches {
@@ -67,7 +96,7 @@ func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) 
 	for k := range num {
 		num[k] /= den[k] // 0/0 = NaN for an uncovered reading
 	}
-	return num, nil
+	return num
 }
 
 // grow returns s resized to n, reallocating only when it must.

@@ -165,3 +165,44 @@ func TestAutoSmoothingLocal(t *testing.T) {
 	}
 	t.Logf("λ %g, LOO RMS %g (unsmoothed %g), error vs truth %g (unsmoothed %g)", ai.Smoothing, ai.LOORMS, plainLOO, ea, ep)
 }
+
+// TestLeaveOneOutDuringFit checks that computing the local leave-one-out
+// errors during the fit (Options.LeaveOneOut) gives the same errors as
+// the later pass that refactorises every patch, and the same surface.
+func TestLeaveOneOutDuringFit(t *testing.T) {
+	xs, ys, vs := scattered(11, 3000, 0, 0, 100, 60, franke01(100, 60))
+	tests := []struct {
+		name string
+		opt  Options
+	}{
+		{"thin-plate", Options{Method: Local}},
+		{"thin-plate smoothed", Options{Method: Local, Smoothing: 1e-4}},
+		{"wendland-c2", Options{Method: Local, Kernel: WendlandC2}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			later := mustFit(t, xs, ys, vs, tt.opt)
+			o := tt.opt
+			o.LeaveOneOut = true
+			during := mustFit(t, xs, ys, vs, o)
+			a, b := later.LeaveOneOut(), during.LeaveOneOut()
+			if len(a) != len(xs) || len(b) != len(xs) {
+				t.Fatalf("LeaveOneOut lengths %d and %d, want %d", len(a), len(b), len(xs))
+			}
+			for k := range a {
+				if math.Abs(a[k]-b[k]) > 1e-12*(1+math.Abs(a[k])) {
+					t.Fatalf("reading %d: error %g after the fit, %g during it", k, a[k], b[k])
+				}
+			}
+			if va, vb := later.Value(37, 21), during.Value(37, 21); va != vb {
+				t.Errorf("surface differs: %g and %g", va, vb)
+			}
+		})
+	}
+}
+
+// franke01 returns Franke's function (Franke 1982) mapped from [0,1]² onto
+// a w × h rectangle.
+func franke01(w, h float64) func(x, y float64) float64 {
+	return func(x, y float64) float64 { return franke(x/w, y/h) }
+}

@@ -235,7 +235,8 @@ func (sc *scene) spacing() float64 {
 // corridor is how far from a profile line a reading may lie and still be
 // marked on it: half the mean reading spacing √(area/n), at least one grid
 // spacing, so that the stations of a survey line along the profile count
-// and those of the neighbouring lines do not (common practice).
+// and those of the neighbouring lines do not (isofield's own choice, not
+// a rule of the trade).
 func (sc *scene) corridor() float64 {
 	s := sc.res.Survey
 	n := len(s.Readings)

@@ -26,6 +26,7 @@ type scene struct {
 	threshold float64 // field threshold in unit per metre (0: none)
 	near      *nearIndex
 	stats     readingStats // for the status line and the readings table
+	stepLimit float64      // tolerable step voltage in unit (0: none)
 }
 
 // zoneInfo is one flagged zone, ranked by severity (rank 1 first).
@@ -63,6 +64,9 @@ func newScene(res *pipeline.Result, cfg pipeline.Config) *scene {
 		sc.criterion = criterionOf(a.Criterion, sc.threshold, sc.unit)
 		if a.Criterion != nil {
 			sc.cautions = a.Criterion.Cautions
+			if a.Criterion.Step {
+				sc.stepLimit = a.Criterion.StepLimit
+			}
 		}
 		sc.notes = append(append([]string(nil), sc.notes...), a.Notes...)
 	} else {

@@ -55,6 +55,9 @@ func TestSceneFromPipeline(t *testing.T) {
 	if n != len(sc.res.Analysis.Suggestions) || n == 0 {
 		t.Errorf("%d suggestions on the map, analysis has %d", n, len(sc.res.Analysis.Suggestions))
 	}
+	if got := strings.Join(m.side.readout(sc, pr, 60), " "); sc.stepLimit <= 0 || !strings.Contains(got, "tolerable") {
+		t.Errorf("step limit %g, readout %q: want the step voltage beside the tolerable one", sc.stepLimit, got)
+	}
 	if !strings.Contains(m.messageLine(), "energised") {
 		t.Errorf("grounding message line %q lacks the caution", m.messageLine())
 	}

@@ -32,11 +32,9 @@ func (p sidePane) View(sc *scene, pr probe, mp mapPane) string {
 	inner := max(p.width-fw, 8)
 	lines := p.readout(sc, pr, inner)
 	room := max(p.height-fh-len(lines), 0)
-	legend, whole := p.legend(sc, mp, inner, room-1)
-	if whole { // a blank line between, when there is room
+	legend, whole := p.legend(sc, mp, inner, room)
+	if whole && len(legend) < room { // a blank line between, when there is room
 		lines = append(lines, "")
-	} else {
-		legend, _ = p.legend(sc, mp, inner, room)
 	}
 	lines = append(lines, legend...)
 	if len(lines) > p.height-fh {
@@ -51,7 +49,10 @@ func (p sidePane) View(sc *scene, pr probe, mp mapPane) string {
 // when it is too long for one.
 func (p sidePane) row(label, value string, w int) []string {
 	st := p.styles
-	parts := wrap(value, max(w-6, 8))
+	parts := []string{value}
+	if lipgloss.Width(value) > w-6 {
+		parts = wrap(value, max(w-6, 8))
+	}
 	out := make([]string, len(parts))
 	for i, v := range parts {
 		l := ""
@@ -84,7 +85,15 @@ func (p sidePane) readout(sc *scene, pr probe, w int) []string {
 		b, name := bearing(pr.EX, pr.EY)
 		out = append(out, p.row("|E|", fmt.Sprintf("%s %s/m → %03.0f° %s", num(e), u, b, name), w)...)
 		if pr.HasStep {
-			out = append(out, p.row("step", num(pr.StepValue)+" "+u+" over 1 m", w)...)
+			step := num(pr.StepValue) + " " + u + " over 1 m"
+			if sc.stepLimit > 0 {
+				share := fmt.Sprintf("%.0f%%", 100*pr.StepValue/sc.stepLimit)
+				if pr.StepValue < 0.01*sc.stepLimit {
+					share = "under 1%"
+				}
+				step += fmt.Sprintf(" (%s of the tolerable %s)", share, withUnit(sc.stepLimit, u))
+			}
+			out = append(out, p.row("step", step, w)...)
 		}
 		out = append(out, p.row("band", sc.bandLabel(pr.Band), w)...)
 	}
@@ -192,4 +201,13 @@ func wrap(s string, w int) []string {
 		return nil
 	}
 	return strings.Split(lipgloss.NewStyle().Width(w).Render(s), "\n")
+}
+
+// withUnit formats v in unit, in volts when a millivolt value reaches
+// 10 000.
+func withUnit(v float64, unit string) string {
+	if unit == "mV" && (v >= 1e4 || v <= -1e4) {
+		return num(v/1000) + " V"
+	}
+	return num(v) + " " + unit
 }

@@ -101,7 +101,7 @@ func (c *checker) residuals(ctx context.Context, spots []spot, out []bool) ([]fl
 			xs, ys, vs = append(xs, p.x), append(ys, p.y), append(vs, p.v)
 		}
 	}
-	m, err := interp.Fit(ctx, xs, ys, vs, interp.Options{Progress: c.progress})
+	m, err := interp.Fit(ctx, xs, ys, vs, interp.Options{Progress: c.progress, LeaveOneOut: true})
 	if err != nil {
 		return nil, nil, fmt.Errorf("fitting %d spots: %w", len(xs), err)
 	}
