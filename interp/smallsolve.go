@@ -124,32 +124,36 @@ func (s *smallSystem) block() blas64.Triangular {
 // transform overwrites the symmetric m×m matrix a with QᵀaQ (forward) or
 // QaQᵀ, one rank-two update per reflector (see nullSpace.transform).
 func (s *smallSystem) transform(a []float64, forward bool) {
-	m, p := s.m, s.p
+	m := s.m
+	p := s.p[:m]
 	for t := 0; t < 3; t++ {
 		k := t
 		if !forward {
 			k = 2 - t
 		}
-		v, tau := s.v[k], s.tau[k]
+		v, tau := s.v[k][:m], s.tau[k]
+		vk := v[k:]
 		var vp float64
-		for i := 0; i < m; i++ {
-			row := a[i*m : i*m+m]
+		for i := range p {
+			row := a[i*m+k : i*m+m]
+			vr := vk[:len(row)]
 			var dot float64
-			for j := k; j < m; j++ {
-				dot += row[j] * v[j]
+			for j, r := range row {
+				dot += r * vr[j]
 			}
 			p[i] = tau * dot
 			vp += v[i] * p[i]
 		}
 		half := tau / 2 * vp
-		for i := range p[:m] {
+		for i := range p {
 			p[i] -= half * v[i]
 		}
-		for i := 0; i < m; i++ {
+		for i := range p {
 			row := a[i*m : i*m+m]
+			pr, vr := p[:len(row)], v[:len(row)]
 			vi, wi := v[i], p[i]
 			for j := range row {
-				row[j] -= vi*p[j] + wi*v[j]
+				row[j] -= vi*pr[j] + wi*vr[j]
 			}
 		}
 	}
