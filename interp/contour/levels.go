@@ -169,3 +169,20 @@ func SpacingAt(f interp.Interpolant, x, y, step float64) float64 {
 	gx, gy := f.Gradient(x, y)
 	return Spacing(step, gx, gy)
 }
+
+// FloorNice rounds v down to a round number, 1, 2 or 5 × 10ⁿ, as used for
+// grid spacings and scale bars. It returns 1 for v that is not positive
+// and finite.
+func FloorNice(v float64) float64 {
+	if !(v > 0) || math.IsInf(v, 0) {
+		return 1
+	}
+	e := math.Pow(10, math.Floor(math.Log10(v)))
+	switch f := v / e; {
+	case f >= 5:
+		return 5 * e
+	case f >= 2:
+		return 2 * e
+	}
+	return e
+}

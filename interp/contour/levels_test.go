@@ -145,3 +145,15 @@ func TestSpacingAtUniformField(t *testing.T) {
 		t.Errorf("SpacingAt in a 20 V/m field at 1 V interval = %g m, want 0.05 m", got)
 	}
 }
+
+func TestFloorNice(t *testing.T) {
+	tests := []struct{ v, want float64 }{
+		{0.42, 0.2}, {1, 1}, {1.99, 1}, {2, 2}, {4.999, 2}, {5, 5}, {9.9, 5},
+		{10, 10}, {0.0173, 0.01}, {93.3, 50}, {0, 1}, {-3, 1}, {math.Inf(1), 1}, {math.NaN(), 1},
+	}
+	for _, tt := range tests {
+		if got := FloorNice(tt.v); math.Abs(got-tt.want) > 1e-12*tt.want {
+			t.Errorf("FloorNice(%g) = %g, want %g", tt.v, got, tt.want)
+		}
+	}
+}

@@ -12,7 +12,6 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 
 	"isofield/interp/contour"
-	"isofield/survey/pipeline"
 )
 
 // Colours of the map's symbols.
@@ -202,7 +201,7 @@ func drawScaleBar(c draw.Canvas, p *plot.Plot) {
 	if !(span > 0) {
 		return
 	}
-	length := pipeline.NiceStep(span / 5)
+	length := contour.FloorNice(span / 5)
 	w := vg.Length(float64(c.Size().X) * length / span)
 	x, y := c.Min.X+12, c.Min.Y+14
 	half := w / 2

@@ -12,6 +12,7 @@ import (
 	"slices"
 
 	"isofield/interp"
+	"isofield/interp/contour"
 	"isofield/survey"
 	"isofield/survey/analysis"
 	"isofield/survey/criteria"
@@ -240,7 +241,7 @@ func AutoSpacing(w, h float64) float64 {
 		return 1
 	}
 	want := l / 150
-	lo := NiceStep(want)
+	lo := contour.FloorNice(want)
 	hi := niceAbove(lo)
 	if math.Log(hi/want) < math.Log(want/lo) {
 		return hi
@@ -258,16 +259,4 @@ func niceAbove(v float64) float64 {
 		return 5 * e
 	}
 	return 10 * e
-}
-
-// NiceStep rounds v > 0 down to 1, 2 or 5 × 10ⁿ.
-func NiceStep(v float64) float64 {
-	e := math.Pow(10, math.Floor(math.Log10(v)))
-	switch f := v / e; {
-	case f >= 5:
-		return 5 * e
-	case f >= 2:
-		return 2 * e
-	}
-	return e
 }

@@ -3,6 +3,8 @@ package mapview
 import (
 	"math"
 	"sort"
+
+	"isofield/interp/contour"
 )
 
 // Scale says how band tones are spread over a palette.
@@ -23,22 +25,6 @@ type Bands struct {
 // N returns the number of bands.
 func (b Bands) N() int { return max(len(b.Edges)-1, 0) }
 
-// floorNice rounds v > 0 down to 1, 2 or 5 × 10ⁿ; it returns 1 for v that
-// is not positive and finite.
-func floorNice(v float64) float64 {
-	if !(v > 0) || math.IsInf(v, 0) {
-		return 1
-	}
-	e := math.Pow(10, math.Floor(math.Log10(v)))
-	switch f := v / e; {
-	case f >= 5:
-		return 5 * e
-	case f >= 2:
-		return 2 * e
-	}
-	return e
-}
-
 // maxBands bounds the number of bands a user interval can produce.
 const maxBands = 400
 
@@ -56,7 +42,7 @@ func NiceBands(lo, hi, interval float64) Bands {
 		hi = lo + max(math.Abs(lo)*1e-3, 1e-9)
 	}
 	if !(interval > 0) || (hi-lo)/interval > maxBands {
-		interval = floorNice((hi - lo) / 8)
+		interval = contour.FloorNice((hi - lo) / 8)
 	}
 	k0 := math.Floor(lo / interval)
 	k1 := math.Ceil(hi / interval)

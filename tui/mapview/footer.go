@@ -5,6 +5,8 @@ import (
 	"math"
 	"strconv"
 	"strings"
+
+	"isofield/interp/contour"
 )
 
 // ScaleBar returns a north arrow and a scale bar for v that fit in width
@@ -18,7 +20,7 @@ func ScaleBar(v View, width int) string {
 	if room < 2 {
 		return "N↑"
 	}
-	d := floorNice(float64(room) * v.MPC)
+	d := contour.FloorNice(float64(room) * v.MPC)
 	n := max(int(math.Round(d/v.MPC)), 2)
 	bar := "|" + strings.Repeat("-", n-2) + "|"
 	return fmt.Sprintf("N↑  %s %s", bar, Distance(d))
