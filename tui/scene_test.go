@@ -2,6 +2,7 @@ package tui
 
 import (
 	"context"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -94,4 +95,33 @@ func allHelp(t testing.TB, m Model) string {
 		sb.WriteString(m.View())
 	}
 	return sb.String()
+}
+
+// TestReadingLabelCorrected checks that the nearest-reading readout shows
+// the value that was gridded (after drift, reference and current scaling)
+// and the value as read when the two differ.
+func TestReadingLabelCorrected(t *testing.T) {
+	res := fixtureResult()
+	sc := newScene(res, pipeline.Config{})
+	tests := []struct {
+		name      string
+		corrected float64
+		want      string
+		wantRead  bool
+	}{
+		{"unchanged", res.Survey.Readings[0].V, fmt.Sprintf(" %s %s", num(res.Survey.Readings[0].V), res.Survey.Unit), false},
+		{"scaled", 4000 * res.Survey.Readings[0].V, fmt.Sprintf(" %s %s", num(4000*res.Survey.Readings[0].V), res.Survey.Unit), true},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			res.QA.Corrected[0] = tt.corrected
+			got := sc.readingLabel(0, 1.5)
+			if !strings.Contains(got, tt.want) {
+				t.Errorf("readingLabel = %q, want it to contain %q", got, tt.want)
+			}
+			if has := strings.Contains(got, "(read "+num(res.Survey.Readings[0].V)+")"); has != tt.wantRead {
+				t.Errorf("readingLabel = %q: shows the value as read = %v, want %v", got, has, tt.wantRead)
+			}
+		})
+	}
 }

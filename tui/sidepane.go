@@ -114,11 +114,16 @@ func (sc *scene) readingLabel(i int, dist float64) string {
 	if id == "" {
 		id = fmt.Sprintf("line %d", r.Line0)
 	}
-	status := qa.OK
-	if q := sc.res.QA; q != nil && i < len(q.Status) {
-		status = q.Status[i]
+	status, v := qa.OK, r.V
+	if q := sc.res.QA; q != nil && i < len(q.Status) && i < len(q.Corrected) {
+		status, v = q.Status[i], q.Corrected[i]
 	}
-	out := fmt.Sprintf("%s %s %s, %.1f m", id, num(r.V), sc.unit, dist)
+	// The corrected value is the one gridded (drift, reference and current
+	// scaling applied); the value as read follows when they differ.
+	out := fmt.Sprintf("%s %s %s, %.1f m", id, num(v), sc.unit, dist)
+	if v != r.V {
+		out += fmt.Sprintf(" (read %s)", num(r.V))
+	}
 	if status != qa.OK {
 		out += " " + status.String()
 	}
