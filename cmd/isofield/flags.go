@@ -42,12 +42,12 @@ func newFlagSet(name, args, summary string, w io.Writer) *flag.FlagSet {
 func (f *surveyFlags) register(fs *flag.FlagSet) {
 	c := &f.cfg
 	fs.StringVar(&c.Load.Units, "units", "", "potential unit of files whose header states none: `V|mV`")
-	fs.Float64Var(&c.Load.LineSpacing, "line-spacing", 0, "metres between survey lines, for files with line and station numbers")
-	fs.Float64Var(&c.Load.StationSpacing, "station-spacing", 0, "metres between stations along a line")
+	fs.Float64Var(&c.Load.LineSpacing, "line-spacing", 0, "`METRES` between survey lines, for files with line and station numbers")
+	fs.Float64Var(&c.Load.StationSpacing, "station-spacing", 0, "`METRES` between stations along a line")
 	fs.BoolVar(&c.Load.LinesAlongY, "lines-along-y", false, "survey lines run along y (stations count northwards)")
 	fs.Float64Var(&c.Spacing, "spacing", 0, "grid spacing in `METRES` (default: about 150 nodes along the longer side)")
 	fs.Float64Var(&c.MaskDistance, "mask", 0, "blank nodes farther than `METRES` from any reading (default: from the readings' spacing; negative: none)")
-	fs.Float64Var(&c.Interval, "interval", 0, "contour interval in the potential unit (default: a round interval giving 8 to 15 bands)")
+	fs.Float64Var(&c.Interval, "interval", 0, "contour `INTERVAL` in the potential unit (default: a round interval giving 8 to 15 bands)")
 	fs.BoolVar(&c.UseSuspects, "use-suspects", false, "grid suspect readings too (excluded readings never)")
 	fs.StringVar(&f.kernel, "kernel", "thin-plate", "radial basis `KERNEL`: thin-plate, cubic, multiquadric, inverse-multiquadric, gaussian, wendland-c2, wendland-c4")
 	fs.StringVar(&f.smoothing, "smoothing", "0", "smoothing λ: auto or a `VALUE` ≥ 0")

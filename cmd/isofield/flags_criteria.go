@@ -52,7 +52,7 @@ func addGroundingFlags(fs *flag.FlagSet, s *criteria.Settings) {
 	fs.Float64Var(&s.SoilRho, "soil-rho", 0, "grounding: soil resistivity in `OHM_M`")
 	fs.Float64Var(&s.SurfaceRho, "surface-rho", 0, "grounding: surface layer resistivity in `OHM_M` (0: no layer)")
 	fs.Float64Var(&s.SurfaceDepth, "surface-depth", 0, "grounding: surface layer thickness in `METRES`")
-	fs.Float64Var(&s.GPR, "gpr", 0, "grounding: potential rise of the grid at fault current, in the potential unit (0: no touch voltages)")
+	fs.Float64Var(&s.GPR, "gpr", 0, "grounding: potential rise `GPR` of the grid at fault current, in the potential unit (0: no touch voltages)")
 	fs.Float64Var(&s.Reach, "reach", 0, "grounding: horizontal reach to the structure in `METRES` (default 1)")
 	fs.Func("structure", "grounding: grounded metal within reach, as `X,Y;X,Y;...` in metres (default: everywhere, with a caveat)", func(v string) error {
 		pts, err := parsePoints(v)
