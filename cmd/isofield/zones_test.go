@@ -105,15 +105,7 @@ func TestZonesJSON(t *testing.T) {
 // readingsBelow lists, sorted, the ids of zonesSmall's readings below v.
 func readingsBelow(t *testing.T, v float64) []string {
 	t.Helper()
-	f, err := os.Open(zonesSmall)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	rows, err := csv.NewReader(f).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
+	rows := readCSV(t, zonesSmall)
 	var ids []string
 	for _, r := range rows[1:] {
 		if x, _ := strconv.ParseFloat(r[3], 64); x < v {
