@@ -173,6 +173,17 @@ func (r *reduced) looDiag(ch *mat.Cholesky) ([]float64, error) {
 // e_k = c_k / (A⁻¹)_kk (Rippa, Adv. Comput. Math. 11 (1999) 193–210).
 func fitGlobal(ds *dataset, b basis, lambda float64, wantLOO bool) (*globalFit, float64, []float64, error) {
 	r := newReduced(ds.x, ds.y, ds.v, b)
+	if r.n == 3 {
+		// Three readings not on one line fix the linear polynomial alone:
+		// the kernel part vanishes (c = 0) and no reading can be left out.
+		d := r.ns.solveR([3]float64{r.g[0], r.g[1], r.g[2]})
+		g := &globalFit{b: b, cx: ds.cx, cy: ds.cy, s: ds.s, x: ds.x, y: ds.y, c: make([]float64, 3), d: d}
+		var e []float64
+		if wantLOO {
+			e = []float64{math.NaN(), math.NaN(), math.NaN()}
+		}
+		return g, 1, e, nil
+	}
 	ch, err := r.cholesky(lambda)
 	if err != nil {
 		return nil, 0, nil, err

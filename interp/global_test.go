@@ -284,3 +284,45 @@ func TestLocalFallsBack(t *testing.T) {
 		t.Errorf("Info = %+v, want the global method and a warning", info)
 	}
 }
+
+// TestThreeReadings checks the smallest survey that can be fitted: three
+// readings not on one line give the plane through them (the linear
+// polynomial alone), for every kernel, also when a fourth reading merges
+// with one of them.
+func TestThreeReadings(t *testing.T) {
+	plane := func(x, y float64) float64 { return -200 + 3*x - 5*y }
+	tests := []struct {
+		name       string
+		xs, ys, vs []float64
+	}{
+		{"three", []float64{0, 1, 0}, []float64{0, 0, 1}, []float64{plane(0, 0), plane(1, 0), plane(0, 1)}},
+		{"projected", []float64{512340, 512344, 512340}, []float64{6843120, 6843120, 6843125},
+			[]float64{plane(0, 0), plane(4, 0), plane(0, 5)}},
+		{"four merging to three", []float64{0, 1, 0, 1e-9}, []float64{0, 0, 1, 0}, []float64{plane(0, 0), plane(1, 0), plane(0, 1), plane(0, 0)}},
+	}
+	for _, tt := range tests {
+		for _, k := range []Kernel{ThinPlate, Cubic, Gaussian, WendlandC2} {
+			t.Run(tt.name+"/"+k.String(), func(t *testing.T) {
+				m, err := Fit(context.Background(), tt.xs, tt.ys, tt.vs, Options{Kernel: k})
+				if err != nil {
+					t.Fatalf("Fit: %v", err)
+				}
+				x, y := tt.xs[0]+0.3, tt.ys[0]+0.2
+				want := plane(x-tt.xs[0], y-tt.ys[0])
+				if got := m.Value(x, y); math.Abs(got-want) > 1e-6 {
+					t.Errorf("Value = %.9g, want %.9g (the plane)", got, want)
+				}
+				gx, gy := m.Gradient(x, y)
+				if math.Abs(gx-3) > 1e-6 || math.Abs(gy+5) > 1e-6 {
+					t.Errorf("Gradient = (%g, %g), want (3, -5)", gx, gy)
+				}
+				for _, e := range m.LeaveOneOut() {
+					if !math.IsNaN(e) {
+						t.Errorf("LeaveOneOut = %v, want NaN (two readings fix no plane)", m.LeaveOneOut())
+						break
+					}
+				}
+			})
+		}
+	}
+}

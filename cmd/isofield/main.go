@@ -58,10 +58,24 @@ func main() {
 	os.Exit(run(&env{stdin: os.Stdin, stdout: os.Stdout, stderr: os.Stderr}, os.Args[1:]))
 }
 
-// run executes one command line and returns the exit code.
-func run(e *env, args []string) int {
+// run executes one command line and returns the exit code. A panic (a
+// bug, never expected from input) ends the command with one line on
+// stderr instead of a stack trace over the user's terminal; set
+// ISOFIELD_DEBUG=1 to get the trace.
+func run(e *env, args []string) int { return dispatch(e, args, commands()) }
+
+// dispatch runs args against the command table cmds.
+func dispatch(e *env, args []string, cmds []command) (code int) {
+	if os.Getenv("ISOFIELD_DEBUG") == "" {
+		defer func() {
+			if p := recover(); p != nil {
+				fmt.Fprintf(e.stderr, "isofield: internal error: %v (please report it with the input; ISOFIELD_DEBUG=1 shows where)\n", p)
+				code = exitInput
+			}
+		}()
+	}
 	if len(args) == 0 {
-		return report(e, runView(e, nil))
+		args = []string{"view"}
 	}
 	name, rest := args[0], args[1:]
 	switch name {
@@ -74,7 +88,7 @@ func run(e *env, args []string) int {
 	case "-v", "--version":
 		name = "version"
 	}
-	for _, c := range commands() {
+	for _, c := range cmds {
 		if c.name == name && c.run != nil {
 			return report(e, c.run(e, rest))
 		}

@@ -152,3 +152,36 @@ func TestFlagsAnywhere(t *testing.T) {
 		t.Errorf("grid -- -not-a-flag.csv: exit %d, stderr %q; want exit 1 naming the file", code, errs)
 	}
 }
+
+// TestDuplicatePositions checks the documented treatment of readings at
+// one position with different values: they are kept, grouped as repeats
+// (marked suspect when they disagree) and gridding goes on with the rest.
+func TestDuplicatePositions(t *testing.T) {
+	path := filepath.Join("..", "..", "testdata", "duplicates.csv")
+	out := filepath.Join(t.TempDir(), "grid.csv")
+	if code, _, errs := runArgs("grid", "--spacing", "0.5", "-o", out, path); code != 0 {
+		t.Fatalf("grid duplicates.csv: exit %d: %s", code, errs)
+	}
+	code, report, errs := runArgs("check", path)
+	if code != 0 || !strings.Contains(report, "DISAGREE") {
+		t.Errorf("check duplicates.csv: exit %d, stderr %q; report lacks the disagreeing repeat:\n%s", code, errs, report)
+	}
+	if code, _, _ := runArgs("check", "--strict", path); code != exitStrict {
+		t.Errorf("check --strict duplicates.csv: exit %d, want %d (suspects)", code, exitStrict)
+	}
+}
+
+// TestPanicIsOneLine checks the last line of defence: a panic inside a
+// command prints one line and exits 1 instead of a stack trace.
+func TestPanicIsOneLine(t *testing.T) {
+	t.Setenv("ISOFIELD_DEBUG", "")
+	boom := []command{{name: "boom", run: func(*env, []string) error { panic("index out of range") }}}
+	var o, e bytes.Buffer
+	code := dispatch(&env{stdin: strings.NewReader(""), stdout: &o, stderr: &e}, []string{"boom"}, boom)
+	if code != exitInput {
+		t.Errorf("exit = %d, want %d", code, exitInput)
+	}
+	if got := e.String(); strings.Count(got, "\n") != 1 || strings.Contains(got, "goroutine") || !strings.Contains(got, "internal error: index out of range") {
+		t.Errorf("stderr = %q, want one line naming the internal error, without a trace", got)
+	}
+}
