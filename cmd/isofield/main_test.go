@@ -101,6 +101,11 @@ func TestBadInput(t *testing.T) {
 			if after := digest(t, path); after != before {
 				t.Errorf("grid %s modified its input", tt.file)
 			}
+			// view fails the same way before it takes over the screen.
+			code, _, errs = runArgs("view", path)
+			if code != exitInput || strings.Count(errs, "\n") != 1 || !strings.Contains(errs, tt.want) {
+				t.Errorf("view %s: exit %d, stderr %q; want exit 1 and one line naming %q", tt.file, code, errs, tt.want)
+			}
 		})
 	}
 }

@@ -9,6 +9,7 @@ import (
 	"sync"
 	"time"
 
+	"isofield/survey"
 	"isofield/survey/demo"
 	"isofield/survey/pipeline"
 	"isofield/survey/session"
@@ -54,6 +55,13 @@ func runView(e *env, args []string) error {
 		cfg.Survey = demo.Survey()
 		opt.Title = cfg.Survey.Name
 	} else {
+		// Bad input ends the command with its one-line message and exit 1
+		// before the screen is taken over; the UI then loads the files
+		// again in the background (and again on every change in watch
+		// mode).
+		if _, err := survey.Load(cfg.Files, cfg.Load); err != nil {
+			return err
+		}
 		opt.Title = titleOf(cfg.Files)
 		opt.ExportDir = filepath.Dir(cfg.Files[0])
 		if err := viewSession(fs, &cfg, &opt); err != nil {
