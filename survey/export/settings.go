@@ -66,7 +66,11 @@ func SettingsOf(cfg pipeline.Config, res *pipeline.Result) []Setting {
 		g := res.Grid
 		add("grid", fmt.Sprintf("%d × %d nodes at %s m", g.NX, g.NY, fmtNum(g.DX)))
 	}
-	add("mask distance", maskText(cfg.MaskDistance))
+	mask := maskText(cfg.MaskDistance)
+	if res != nil && cfg.MaskDistance == 0 && res.MaskDistance > 0 {
+		mask = fmtNum(res.MaskDistance) + " m (automatic)"
+	}
+	add("mask distance", mask)
 	add("suspect readings gridded", yesNo(cfg.UseSuspects))
 	return ss
 }

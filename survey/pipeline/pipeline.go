@@ -73,7 +73,9 @@ type Result struct {
 	Model    *interp.Model
 	Grid     *interp.Grid
 	Analysis *analysis.Result
-	Notes    []string
+	// MaskDistance is the masking distance used, in metres (0: none).
+	MaskDistance float64
+	Notes        []string
 }
 
 // Run executes the pipeline. It honours ctx between and within stages.
@@ -137,6 +139,7 @@ func Run(ctx context.Context, cfg Config, progress Progress) (*Result, error) {
 	}
 	if md > 0 {
 		interp.MaskFar(g, xs, ys, md)
+		res.MaskDistance = md
 	}
 	progress(StageGrid, 0)
 	if err := interp.Evaluate(ctx, m, g, func(d, t int) { progress(StageGrid, frac(d, t)) }); err != nil {

@@ -74,6 +74,13 @@ func TestRunDemo(t *testing.T) {
 	if res.Analysis == nil || len(res.Analysis.Contours) == 0 {
 		t.Errorf("demo run gave no contours")
 	}
+	var xs, ys []float64
+	for _, i := range res.Used {
+		xs, ys = append(xs, res.Survey.Readings[i].X), append(ys, res.Survey.Readings[i].Y)
+	}
+	if want := interp.DefaultMaskDistance(xs, ys); res.MaskDistance != want || want <= 0 {
+		t.Errorf("MaskDistance = %g, want the default %g", res.MaskDistance, want)
+	}
 }
 
 // TestReuseSpikeFit checks that the grid reuses the checking stage's fit
