@@ -81,10 +81,16 @@ func bearing(ex, ey float64) (float64, string) {
 	return b, names[int(math.Round(b/45))%8]
 }
 
-// num formats a value with up to 4 significant digits.
+// num formats a value with up to 4 significant digits, or as a whole
+// number from 10⁴ up to 10⁶.
 func num(v float64) string {
 	if math.IsNaN(v) {
 		return "—"
+	}
+	// Whole numbers up to seven digits read better than exponents
+	// (potentials at fault current reach 10⁵ mV and more).
+	if a := math.Abs(v); a >= 1e4 && a < 1e6 {
+		return strconv.FormatFloat(v, 'f', 0, 64)
 	}
 	return strconv.FormatFloat(v, 'g', 4, 64)
 }

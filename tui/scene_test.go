@@ -125,3 +125,19 @@ func TestReadingLabelCorrected(t *testing.T) {
 		})
 	}
 }
+
+func TestNum(t *testing.T) {
+	tests := []struct {
+		v    float64
+		want string
+	}{
+		{math.NaN(), "—"}, {0, "0"}, {-350.25, "-350.2"}, {0.0123456, "0.01235"}, {9999, "9999"},
+		{10000, "10000"}, {956612.7, "956613"}, {-240100, "-240100"}, {999999, "999999"}, {7e6, "7e+06"},
+		{1.2e7, "1.2e+07"}, {3e-6, "3e-06"},
+	}
+	for _, tt := range tests {
+		if got := num(tt.v); got != tt.want {
+			t.Errorf("num(%g) = %q, want %q", tt.v, got, tt.want)
+		}
+	}
+}
