@@ -2,11 +2,12 @@ package main
 
 import (
 	"context"
-	"encoding/csv"
 	"fmt"
 	"io"
 	"strconv"
 	"text/tabwriter"
+
+	"github.com/gocarina/gocsv"
 
 	"isofield/survey/analysis"
 	"isofield/survey/fileout"
@@ -70,14 +71,24 @@ func writeSuggestTable(w io.Writer, sg []analysis.Suggestion) error {
 	return tw.Flush()
 }
 
-// writeSuggestCSV writes the stake-out file.
+// stakeOutRow is one line of the stake-out CSV. Its columns are fixed, so
+// a tagged struct written by gocsv expresses them; the numbers are
+// formatted here to keep millimetres and four significant digits.
+type stakeOutRow struct {
+	ID    string `csv:"id"`
+	X     string `csv:"x_m"`
+	Y     string `csv:"y_m"`
+	Score string `csv:"score"`
+	Why   string `csv:"why"`
+}
+
+// writeSuggestCSV writes the stake-out file: id,x_m,y_m,score,why.
 func writeSuggestCSV(w io.Writer, sg []analysis.Suggestion) error {
-	cw := csv.NewWriter(w)
-	rows := [][]string{{"id", "x_m", "y_m", "score", "why"}}
-	for _, s := range sg {
-		rows = append(rows, []string{s.ID, ff(s.X), ff(s.Y), strconv.FormatFloat(s.Score, 'g', 4, 64), s.Why})
+	rows := make([]stakeOutRow, len(sg))
+	for i, s := range sg {
+		rows[i] = stakeOutRow{s.ID, ff(s.X), ff(s.Y), strconv.FormatFloat(s.Score, 'g', 4, 64), s.Why}
 	}
-	return cw.WriteAll(rows)
+	return gocsv.Marshal(rows, w)
 }
 
 // ff formats a coordinate with millimetre resolution.
