@@ -132,29 +132,45 @@ func (s *smallSystem) transform(a []float64, forward bool) {
 			k = 2 - t
 		}
 		v, tau := s.v[k][:m], s.tau[k]
-		vk := v[k:]
+		// p = τ·A·v from the upper triangle alone: each entry above the
+		// diagonal serves row i and, by symmetry, row j.
+		for i := range p {
+			p[i] = 0
+		}
+		for i := range p {
+			row := a[i*m+i : i*m+m]
+			vr, pr := v[i:i+len(row)], p[i:i+len(row)]
+			vi := v[i]
+			acc := row[0] * vi
+			for j := 1; j < len(row); j++ {
+				acc += row[j] * vr[j]
+				pr[j] += row[j] * vi
+			}
+			p[i] += acc
+		}
 		var vp float64
 		for i := range p {
-			row := a[i*m+k : i*m+m]
-			vr := vk[:len(row)]
-			var dot float64
-			for j, r := range row {
-				dot += r * vr[j]
-			}
-			p[i] = tau * dot
+			p[i] *= tau
 			vp += v[i] * p[i]
 		}
 		half := tau / 2 * vp
 		for i := range p {
 			p[i] -= half * v[i]
 		}
+		// A −= v·pᵀ + p·vᵀ, upper triangle only.
 		for i := range p {
-			row := a[i*m : i*m+m]
-			pr, vr := p[:len(row)], v[:len(row)]
+			row := a[i*m+i : i*m+m]
+			pr, vr := p[i:i+len(row)], v[i:i+len(row)]
 			vi, wi := v[i], p[i]
 			for j := range row {
 				row[j] -= vi*pr[j] + wi*vr[j]
 			}
+		}
+	}
+	// Mirror the upper triangle so the whole matrix is symmetric again.
+	for i := 1; i < m; i++ {
+		for j := 0; j < i; j++ {
+			a[i*m+j] = a[j*m+i]
 		}
 	}
 }
