@@ -11,6 +11,7 @@ import (
 	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
+	"isofield/survey"
 	"isofield/survey/pipeline"
 )
 
@@ -108,7 +109,7 @@ func (m Model) Init() tea.Cmd { return m.initCmd }
 // separate from Init so that the run's cancel function stays in the model.
 func (m Model) Start() (Model, tea.Cmd) {
 	cmds := []tea.Cmd{}
-	m, c := m.run("first look", m.cfg.Spacing == 0)
+	m, c := m.run("first look", m.cfg.Spacing == 0, m.opt.Loaded)
 	cmds = append(cmds, c)
 	if m.opt.Watch && len(m.cfg.Files) > 0 {
 		m.watch = stampOf(m.cfg.Files)
@@ -119,16 +120,22 @@ func (m Model) Start() (Model, tea.Cmd) {
 }
 
 // regrid cancels any run in progress and starts a new one.
-func (m Model) regrid(why string) (Model, tea.Cmd) { return m.run(why, false) }
+func (m Model) regrid(why string) (Model, tea.Cmd) { return m.run(why, false, nil) }
 
 // run cancels any run in progress and starts a new one, a coarse preview
-// when asked.
-func (m Model) run(why string, preview bool) (Model, tea.Cmd) {
+// when asked. loaded, if not nil, is the survey as just read from the
+// files, which the run uses instead of reading them again; m.cfg keeps
+// naming the files, so later runs (watch mode) read them afresh.
+func (m Model) run(why string, preview bool, loaded *survey.Survey) (Model, tea.Cmd) {
 	if m.cancel != nil {
 		m.cancel()
 	}
 	m.gen++
-	cmd, cancel := runPipeline(m.cfg, m.gen, preview)
+	cfg := m.cfg
+	if loaded != nil && cfg.Survey == nil {
+		cfg.Survey = loaded
+	}
+	cmd, cancel := runPipeline(cfg, m.gen, preview)
 	m.cancel, m.running, m.stage, m.frac = cancel, true, why, 0
 	return m, cmd
 }
@@ -248,7 +255,8 @@ func (m Model) onResult(msg resultMsg) (tea.Model, tea.Cmd) {
 	m.settings = m.settings.SetConfig(m.cfg).SetUnit(m.scene.unit)
 	m.profile = m.profile.Set(m.scene, m.marks[0], m.marks[1])
 	if msg.preview {
-		return m.regrid("full grid")
+		// The full grid follows at once on the survey the preview read.
+		return m.run("full grid", false, msg.res.Survey)
 	}
 	return m, nil
 }

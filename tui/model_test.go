@@ -3,6 +3,7 @@ package tui
 import (
 	"errors"
 	"math"
+	"path/filepath"
 	"strings"
 	"testing"
 	"time"
@@ -408,4 +409,58 @@ func TestExportKey(t *testing.T) {
 		t.Fatalf("export: %d files, %v (message %q)", msg.files, msg.err, m.message)
 	}
 	t.Log(m.message)
+}
+
+// TestLoadedSurveyServesFirstRuns checks that the survey the command line
+// already read serves the first look and the full grid after it: the
+// configured file does not exist, so any run that read it would fail.
+func TestLoadedSurveyServesFirstRuns(t *testing.T) {
+	cfg := fixtureConfig()
+	loaded := fixtureResult().Survey
+	cfg.Survey, cfg.Files = nil, []string{filepath.Join(t.TempDir(), "gone.csv")}
+	m := New(cfg, Options{Loaded: loaded}, DefaultKeyMap(), testStyles(false))
+	m, cmd := m.Start()
+	first := resultOf(t, cmd)
+	if first.err != nil || !first.preview {
+		t.Fatalf("first look: preview %v, error %v; want a preview without error", first.preview, first.err)
+	}
+	next, cmd := m.Update(first)
+	m = next.(Model)
+	full := resultOf(t, cmd)
+	if full.err != nil || full.preview {
+		t.Fatalf("full grid: preview %v, error %v; want the full run without error", full.preview, full.err)
+	}
+	if full.res.Survey != loaded {
+		t.Errorf("full grid ran on another survey than the one loaded")
+	}
+	if _, cmd := m.regrid("again"); resultOf(t, cmd).err == nil {
+		t.Errorf("a later regrid did not read the files again")
+	}
+}
+
+// resultOf runs cmd, batches included, and returns the first resultMsg.
+func resultOf(t *testing.T, cmd tea.Cmd) resultMsg {
+	t.Helper()
+	var find func(tea.Cmd) (resultMsg, bool)
+	find = func(c tea.Cmd) (resultMsg, bool) {
+		if c == nil {
+			return resultMsg{}, false
+		}
+		switch msg := c().(type) {
+		case resultMsg:
+			return msg, true
+		case tea.BatchMsg:
+			for _, sub := range msg {
+				if r, ok := find(sub); ok {
+					return r, true
+				}
+			}
+		}
+		return resultMsg{}, false
+	}
+	r, ok := find(cmd)
+	if !ok {
+		t.Fatal("no pipeline result from the command")
+	}
+	return r
 }

@@ -10,6 +10,7 @@ import (
 	"github.com/charmbracelet/lipgloss"
 	"github.com/muesli/termenv"
 
+	"isofield/survey"
 	"isofield/survey/pipeline"
 )
 
@@ -35,6 +36,10 @@ type Options struct {
 	Version string
 	// NoColor forces monochrome (NO_COLOR is honoured regardless).
 	NoColor bool
+	// Loaded, if not nil, is the survey just read from cfg.Files; the first
+	// run uses it instead of reading the files again (later runs, such as
+	// those of watch mode, read them afresh).
+	Loaded *survey.Survey
 	// Input and Output default to the terminal (tests set them).
 	Input  io.Reader
 	Output io.Writer

@@ -56,12 +56,13 @@ func runView(e *env, args []string) error {
 		opt.Title = cfg.Survey.Name
 	} else {
 		// Bad input ends the command with its one-line message and exit 1
-		// before the screen is taken over; the UI then loads the files
-		// again in the background (and again on every change in watch
-		// mode).
-		if _, err := survey.Load(cfg.Files, cfg.Load); err != nil {
+		// before the screen is taken over; the UI's first run grids the
+		// survey read here (watch mode reads the files again on change).
+		s, err := survey.Load(cfg.Files, cfg.Load)
+		if err != nil {
 			return err
 		}
+		opt.Loaded = s
 		opt.Title = titleOf(cfg.Files)
 		opt.ExportDir = filepath.Dir(cfg.Files[0])
 		if err := viewSession(fs, &cfg, &opt); err != nil {
