@@ -8,8 +8,8 @@ import (
 	"isofield/survey"
 )
 
-// TestNearIndexBruteForce compares the bucket search with a scan of every
-// reading on seeded random surveys, at points inside and outside.
+// TestNearIndexBruteForce compares the readout's nearest-reading search
+// with a scan of every reading on seeded random surveys, at points inside and outside.
 func TestNearIndexBruteForce(t *testing.T) {
 	rng := rand.New(rand.NewPCG(6, 2026))
 	for _, n := range []int{1, 2, 17, 500, 3000} {
@@ -17,10 +17,10 @@ func TestNearIndexBruteForce(t *testing.T) {
 		for i := range rs {
 			rs[i].X, rs[i].Y = 1e5+rng.Float64()*300, 5e6+rng.Float64()*40
 		}
-		ix := newNearIndex(rs)
+		ix := readingIndex(rs)
 		for range 300 {
 			x, y := 1e5-100+rng.Float64()*500, 5e6-50+rng.Float64()*140
-			got, gd := ix.nearest(x, y)
+			got, gd := ix.Nearest(x, y)
 			want, wd := -1, math.Inf(1)
 			for i, r := range rs {
 				if d := math.Hypot(r.X-x, r.Y-y); d < wd {
@@ -32,7 +32,7 @@ func TestNearIndexBruteForce(t *testing.T) {
 			}
 		}
 	}
-	if i, d := newNearIndex(nil).nearest(0, 0); i != -1 || !math.IsInf(d, 1) {
+	if i, d := readingIndex(nil).Nearest(0, 0); i != -1 || !math.IsInf(d, 1) {
 		t.Errorf("empty survey: %d %g", i, d)
 	}
 }
@@ -44,10 +44,10 @@ func BenchmarkNearest(b *testing.B) {
 		for i := range rs {
 			rs[i].X, rs[i].Y = rng.Float64()*1000, rng.Float64()*700
 		}
-		ix := newNearIndex(rs)
+		ix := readingIndex(rs)
 		b.Run("n="+itoa(n), func(b *testing.B) {
 			for b.Loop() {
-				ix.nearest(rng.Float64()*1000, rng.Float64()*700)
+				ix.Nearest(rng.Float64()*1000, rng.Float64()*700)
 			}
 		})
 	}

@@ -6,6 +6,7 @@ import (
 	"strconv"
 	"strings"
 
+	"isofield/survey"
 	"isofield/survey/analysis"
 	"isofield/survey/criteria"
 	"isofield/survey/pipeline"
@@ -68,9 +69,18 @@ func (sc *scene) valueAt(x, y float64) (v, ex, ey float64) {
 // nearestReading returns the reading closest to (x, y) and its distance.
 func (sc *scene) nearestReading(x, y float64) (int, float64) {
 	if sc.near == nil {
-		sc.near = newNearIndex(sc.res.Survey.Readings)
+		sc.near = readingIndex(sc.res.Survey.Readings)
 	}
-	return sc.near.nearest(x, y)
+	return sc.near.Nearest(x, y)
+}
+
+// readingIndex indexes the readings' positions for nearestReading.
+func readingIndex(rs []survey.Reading) *analysis.NearIndex {
+	xs, ys := make([]float64, len(rs)), make([]float64, len(rs))
+	for i, r := range rs {
+		xs[i], ys[i] = r.X, r.Y
+	}
+	return analysis.NewNearIndex(xs, ys)
 }
 
 // bearing returns the compass bearing (degrees clockwise from north) of

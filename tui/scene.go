@@ -24,7 +24,7 @@ type scene struct {
 	cautions  []string
 	notes     []string
 	threshold float64 // field threshold in unit per metre (0: none)
-	near      *nearIndex
+	near      *analysis.NearIndex
 	stats     readingStats // for the status line and the readings table
 	stepLimit float64      // tolerable step voltage in unit (0: none)
 }
@@ -85,7 +85,7 @@ func newScene(res *pipeline.Result, cfg pipeline.Config) *scene {
 		}
 	}
 	sc.data = mapview.NewData(g, pot, field, flagged, pts)
-	sc.near = newNearIndex(res.Survey.Readings)
+	sc.near = readingIndex(res.Survey.Readings)
 	sc.stats = measureReadings(res)
 	return sc
 }

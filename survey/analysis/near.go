@@ -55,15 +55,21 @@ const maxNearest = 8
 // their distances; fewer when there are fewer readings. It panics if k >
 // maxNearest (a caller's bug).
 func (ix *nearIndex) nearest(x, y float64, k int) (idx []int, dist []float64) {
+	var bi [maxNearest]int
+	var bd [maxNearest]float64
+	n := ix.nearestInto(x, y, k, &bi, &bd)
+	return append([]int(nil), bi[:n]...), append([]float64(nil), bd[:n]...)
+}
+
+// nearestInto is nearest writing into bi and bd; it returns the count.
+func (ix *nearIndex) nearestInto(x, y float64, k int, bi *[maxNearest]int, bd *[maxNearest]float64) int {
 	if k > maxNearest {
 		panic("analysis: nearest with k > maxNearest")
 	}
 	k = min(k, len(ix.xs))
-	if k <= 0 {
-		return nil, nil
+	if k <= 0 || math.IsNaN(x) || math.IsNaN(y) {
+		return 0
 	}
-	var bi [maxNearest]int
-	var bd [maxNearest]float64
 	n := 0
 	ci, cj := ix.cell(x, y)
 	for r := 0; ; r++ {
@@ -78,30 +84,59 @@ func (ix *nearIndex) nearest(x, y float64, k int) (idx []int, dist []float64) {
 			}
 		}
 		// Every reading outside the rings searched so far is at least r
-		// bucket widths away from the query.
-		if n == k && bd[k-1] <= float64(r)*ix.cs || r > ix.nx+ix.ny {
+		// bucket widths away from the query; strictly nearer ones settle
+		// the order, ties by index included.
+		if n == k && bd[k-1] < float64(r)*ix.cs || r > ix.nx+ix.ny {
 			break
 		}
 	}
-	return append([]int(nil), bi[:n]...), append([]float64(nil), bd[:n]...)
+	return n
 }
 
-// insertBest inserts (p, d) into the n sorted best entries, keeping at most
-// k, and returns the new count.
+// NearIndex finds the reading nearest a point through a uniform bucket
+// grid with about two readings per bucket; a query costs a few buckets
+// whatever the survey's size, so the terminal UI's readout uses it on every
+// frame.
+type NearIndex struct{ ix *nearIndex }
+
+// NewNearIndex indexes the points (xs[i], ys[i]). It keeps the slices.
+func NewNearIndex(xs, ys []float64) *NearIndex { return &NearIndex{newNearIndex(xs, ys)} }
+
+// Nearest returns the index of the point nearest (x, y) and its distance
+// (of points at the same distance, the first); -1 and +Inf without points
+// or for a NaN position.
+func (n *NearIndex) Nearest(x, y float64) (int, float64) {
+	var bi [maxNearest]int
+	var bd [maxNearest]float64
+	if n.ix.nearestInto(x, y, 1, &bi, &bd) == 0 {
+		return -1, math.Inf(1)
+	}
+	return bi[0], bd[0]
+}
+
+// insertBest inserts (p, d) into the n best entries, sorted by distance
+// and, at equal distance, by index, keeping at most k; it returns the new
+// count.
 func insertBest(bi []int, bd []float64, n, k, p int, d float64) int {
-	if n == k && d >= bd[k-1] {
+	if n == k && !before(d, p, bd[k-1], bi[k-1]) {
 		return n
 	}
 	if n < k {
 		n++
 	}
 	m := n - 1
-	for m > 0 && bd[m-1] > d {
+	for m > 0 && before(d, p, bd[m-1], bi[m-1]) {
 		bi[m], bd[m] = bi[m-1], bd[m-1]
 		m--
 	}
 	bi[m], bd[m] = p, d
 	return n
+}
+
+// before reports whether (d, p) sorts before (e, q): nearer, or as near
+// with a smaller index.
+func before(d float64, p int, e float64, q int) bool {
+	return d < e || d == e && p < q
 }
 
 func abs(a int) int {

@@ -39,3 +39,32 @@ func TestNearIndexBruteForce(t *testing.T) {
 		}
 	}
 }
+
+// TestNearestTies checks that of readings at the same distance the first
+// is nearest, wherever the buckets put them.
+func TestNearestTies(t *testing.T) {
+	// A lattice 10 m apart: the query at a cell centre is 5√2 m from four.
+	var xs, ys []float64
+	for j := range 6 {
+		for i := range 6 {
+			xs, ys = append(xs, float64(10*i)), append(ys, float64(10*j))
+		}
+	}
+	ix := NewNearIndex(xs, ys)
+	for _, q := range [][2]float64{{15, 15}, {25, 35}, {45, 5}, {5, 45}} {
+		got, d := ix.Nearest(q[0], q[1])
+		want := -1
+		for i := range xs {
+			if math.Hypot(xs[i]-q[0], ys[i]-q[1]) == d {
+				want = i
+				break
+			}
+		}
+		if got != want {
+			t.Errorf("Nearest(%v) = %d, want %d, the first of the readings %g m away", q, got, want, d)
+		}
+	}
+	if i, d := ix.Nearest(math.NaN(), 0); i != -1 || !math.IsInf(d, 1) {
+		t.Errorf("Nearest(NaN, 0) = %d, %g; want -1, +Inf", i, d)
+	}
+}
