@@ -2,6 +2,7 @@ package interp
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
 )
 
@@ -120,4 +121,46 @@ func FuzzParseKernel(f *testing.F) {
 			t.Errorf("ParseKernel(%q) = %v, but ParseKernel(%q) = %v, %v", s, k, k.String(), k2, err)
 		}
 	})
+}
+
+// TestTPSLoopsMatchBasis checks the thin-plate loops with the logarithm
+// written out (tps.go) against basis.phi and basis.phiD, including
+// coincident and subnormally close points, to 1e-15 relative to the sum
+// of the magnitudes.
+func TestTPSLoopsMatchBasis(t *testing.T) {
+	b := newBasis(ThinPlate, 0)
+	r := rand.New(rand.NewPCG(5, 6))
+	for trial := 0; trial < 200; trial++ {
+		n := 1 + r.IntN(60)
+		xs, ys, c := make([]float64, n), make([]float64, n), make([]float64, n)
+		for j := range xs {
+			xs[j], ys[j], c[j] = r.Float64()*2-1, r.Float64()*2-1, r.NormFloat64()
+		}
+		u, v := xs[0], ys[0] // coincident with the first point
+		switch trial % 3 {
+		case 1:
+			u, v = r.Float64()*3-1.5, r.Float64()*3-1.5
+		case 2:
+			u = xs[0] + 1e-160 // r² subnormal
+		}
+		row := make([]float64, n)
+		tpsRow(row, xs, ys, u, v, b.lt)
+		s, su, sv := tpsValueGrad(c, xs, ys, u, v, b.lt)
+		var ws, wu, wv, scale float64
+		for j := range xs {
+			du, dv := u-xs[j], v-ys[j]
+			want := b.phi(du*du + dv*dv)
+			if row[j] != want && math.Abs(row[j]-want) > 1e-15*max(1, math.Abs(want)) {
+				t.Fatalf("trial %d: tpsRow[%d] = %.17g, phi %.17g", trial, j, row[j], want)
+			}
+			f, dr := b.phiD(du*du + dv*dv)
+			ws, wu, wv = ws+c[j]*f, wu+c[j]*dr*du, wv+c[j]*dr*dv
+			scale += math.Abs(c[j]) * (math.Abs(f) + math.Abs(dr))
+		}
+		for _, d := range [][2]float64{{s, ws}, {su, wu}, {sv, wv}} {
+			if math.Abs(d[0]-d[1]) > 1e-15*max(1, scale) {
+				t.Fatalf("trial %d: tpsValueGrad %.17g, phiD %.17g", trial, d[0], d[1])
+			}
+		}
+	}
 }

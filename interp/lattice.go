@@ -17,30 +17,40 @@ const (
 // which its weight vanishes, so that wherever its weight is felt the
 // point lies well inside the readings it was fitted to, and the local
 // fit's larger error near its own edge never enters the blend.
-const fitMargin = 2
+var fitMargin = 2.0
+
+// coverRatio is the ratio of a patch's weight radius to the half-diagonal
+// of its lattice cell. It must exceed 1 so that the disks cover the box;
+// the larger it is, the more patches overlap at each point: about
+// π·coverRatio²/2 of them, each costing a local evaluation.
+var coverRatio = 1.414
 
 // lattice is the regular layout of patch centres over the readings'
 // bounding box (scaled coordinates): na × nb cells of hx × hy, one patch
-// centre at the middle of each, base radius rad0 = max(hx, hy), which is
-// at least the half-diagonal of a cell, so the base disks cover the box.
+// centre at the middle of each, base weight radius rad0, at least
+// coverRatio times the half-diagonal of a cell, so the base disks cover
+// the box.
 type lattice struct {
 	x0, y0, hx, hy float64
 	na, nb         int
 	rad0           float64
 }
 
-// newLattice sizes the cells so that a base disk holds about localTarget
-// readings at the survey's mean density.
+// newLattice sizes the cells so that a base fit disk (radius
+// fitMargin·rad0) holds about localTarget readings at the survey's mean
+// density.
 func newLattice(ds *dataset) lattice {
 	xmin, ymin, xmax, ymax := bounds(ds.x, ds.y)
 	w, h := xmax-xmin, ymax-ymin
 	n := float64(len(ds.x))
 	area := max(w*h, ds.h*ds.h*n)
-	H := math.Sqrt(localTarget*area/(math.Pi*n)) / fitMargin
+	rho := math.Sqrt(localTarget*area/(math.Pi*n)) / fitMargin
+	H := rho * math.Sqrt2 / coverRatio // a square cell's side
 	na := max(1, int(math.Ceil(w/H)))
 	nb := max(1, int(math.Ceil(h/H)))
 	hx, hy := max(w/float64(na), H*1e-3), max(h/float64(nb), H*1e-3)
-	return lattice{x0: xmin, y0: ymin, hx: hx, hy: hy, na: na, nb: nb, rad0: max(hx, hy)}
+	rad0 := max(rho, coverRatio*math.Hypot(hx, hy)/2)
+	return lattice{x0: xmin, y0: ymin, hx: hx, hy: hy, na: na, nb: nb, rad0: rad0}
 }
 
 func (l lattice) centre(a, b int) (x, y float64) {
@@ -51,7 +61,7 @@ func (l lattice) centre(a, b int) (x, y float64) {
 // and lays the patches out in lf (coordinates, members, room for the
 // coefficients).
 func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit) {
-	est := l.na * l.nb * (localTarget + localTarget/4)
+	est := l.na * l.nb * int(localTarget*1.25)
 	lf.px, lf.py = make([]float64, 0, est), make([]float64, 0, est)
 	lf.coef, lf.member = make([]float64, 0, est), make([]int32, 0, est)
 	lf.patches = make([]patch, 0, l.na*l.nb)

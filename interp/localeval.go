@@ -66,6 +66,10 @@ func (lf *localFit) patchValueGrad(p *patch, u, v float64) (s, su, sv float64) {
 	su, sv = p.d[1], p.d[2]
 	b := p.b
 	px, py, c := lf.px[p.lo:p.hi], lf.py[p.lo:p.hi], lf.coef[p.lo:p.hi]
+	if b.k == ThinPlate {
+		ks, ku, kv := tpsValueGrad(c, px, py, u, v, b.lt)
+		return s + ks, su + ku, sv + kv
+	}
 	for i, ci := range c {
 		du, dv := u-px[i], v-py[i]
 		f, dr := b.phiD(du*du + dv*dv)

@@ -27,12 +27,27 @@ func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) 
 // patchErrors stores the patch leave-one-out errors e_jk = c_jk/(A_j⁻¹)_kk
 // of patch p, whose system sys was just factorised and solved (the
 // factorisation is consumed).
+//
+// Only the readings inside the patch's weight disk enter the blend
+// (blendErrors), about a quarter of the patch's readings with the fit
+// radius twice the weight radius; the others get NaN, and their entries of
+// A_j⁻¹ are never computed.
 func (lf *localFit) patchErrors(p *patch, sys *smallSystem) {
+	lf.storeErrors(lf.ej, p, sys)
+}
+
+// storeErrors writes patch p's leave-one-out errors into ej from sys,
+// which holds p's factorised system.
+func (lf *localFit) storeErrors(ej []float64, p *patch, sys *smallSystem) {
 	m := int(p.hi - p.lo)
-	sys.diag = grow(sys.diag, m)
-	sys.work = sys.inverseDiag(sys.diag, sys.work)
-	for i := 0; i < m; i++ {
-		lf.ej[int(p.lo)+i] = lf.coef[int(p.lo)+i] / sys.diag[i]
+	sys.work = grow(sys.work, m)
+	r := p.rad / p.frad // weight radius in patch coordinates
+	for i := p.lo; i < p.hi; i++ {
+		if lf.px[i]*lf.px[i]+lf.py[i]*lf.py[i] >= r*r {
+			ej[i] = math.NaN()
+			continue
+		}
+		ej[i] = lf.coef[i] / sys.inverseDiagAt(int(i-p.lo), sys.work)
 	}
 }
 
@@ -60,11 +75,7 @@ func (lf *localFit) refitErrors(ds *dataset, plan localPlan) error {
 				failed.Store(true)
 				return
 			}
-			sys.diag = grow(sys.diag, m)
-			sys.work = sys.inverseDiag(sys.diag, sys.work)
-			for i := 0; i < m; i++ {
-				ej[int(p.lo)+i] = lf.coef[int(p.lo)+i] / sys.diag[i]
-			}
+			lf.storeErrors(ej, p, &sys)
 		}
 	})
 	if failed.Load() {
@@ -83,7 +94,7 @@ func (lf *localFit) blendErrors(ds *dataset, ej []float64) []float64 {
 		p := &lf.patches[j]
 		for i := p.lo; i < p.hi; i++ {
 			q := math.Hypot(lf.px[i], lf.py[i]) * p.frad / p.rad
-			if q >= 1 {
+			if q >= 1 || math.IsNaN(ej[i]) {
 				continue
 			}
 			t := 1 - q

@@ -10,6 +10,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"time"
 
 	"isofield/interp"
 	"isofield/survey/pipeline"
@@ -227,7 +228,24 @@ func (f *surveyFlags) run(ctx context.Context, fs *flag.FlagSet) (*pipeline.Resu
 	if _, _, err := applySession(fs, &f.cfg); err != nil {
 		return nil, err
 	}
-	return pipeline.Run(ctx, f.cfg, nil)
+	return pipeline.Run(ctx, f.cfg, stageTrace(os.Getenv("ISOFIELD_TRACE") != ""))
+}
+
+// stageTrace returns, when on, a progress function that prints the time
+// at which each pipeline stage starts to stderr (for contributors:
+// ISOFIELD_TRACE=1 isofield grid ...; see DEVELOPERS.md), else nil.
+func stageTrace(on bool) pipeline.Progress {
+	if !on {
+		return nil
+	}
+	t0 := time.Now()
+	last := ""
+	return func(stage string, _ float64) {
+		if stage != last {
+			last = stage
+			fmt.Fprintf(os.Stderr, "isofield: %7.3f s  %s\n", time.Since(t0).Seconds(), stage)
+		}
+	}
 }
 
 // ignored is a flag value that accepts anything and keeps nothing.

@@ -11,6 +11,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"runtime/pprof"
 )
 
 // version is set at build time with -ldflags "-X main.version=...".
@@ -55,7 +56,34 @@ func commands() []command {
 }
 
 func main() {
-	os.Exit(run(&env{stdin: os.Stdin, stdout: os.Stdout, stderr: os.Stderr}, os.Args[1:]))
+	stop := startProfile(os.Getenv("ISOFIELD_CPUPROFILE"))
+	code := run(&env{stdin: os.Stdin, stdout: os.Stdout, stderr: os.Stderr}, os.Args[1:])
+	stop()
+	os.Exit(code)
+}
+
+// startProfile writes a CPU profile of the whole run to path (for
+// contributors: ISOFIELD_CPUPROFILE=cpu.prof isofield grid ...; see
+// DEVELOPERS.md) and returns the function that finishes it. An empty
+// path, or one that cannot be created, profiles nothing.
+func startProfile(path string) func() {
+	if path == "" {
+		return func() {}
+	}
+	f, err := os.Create(path)
+	if err != nil {
+		fmt.Fprintf(os.Stderr, "isofield: cpu profile: %v\n", err)
+		return func() {}
+	}
+	if err := pprof.StartCPUProfile(f); err != nil {
+		fmt.Fprintf(os.Stderr, "isofield: cpu profile: %v\n", err)
+		f.Close()
+		return func() {}
+	}
+	return func() {
+		pprof.StopCPUProfile()
+		f.Close()
+	}
 }
 
 // run executes one command line and returns the exit code. A panic (a
