@@ -51,10 +51,13 @@ func (ix *pointIndex) fill() {
 	nc := ix.nx * ix.ny
 	ix.start = make([]int32, nc+1)
 	cells := make([]int32, len(ix.xs))
-	for i := range ix.xs {
-		a, b := ix.cellOf(ix.xs[i], ix.ys[i])
-		c := int32(b*ix.nx + a)
-		cells[i] = c
+	parallelRange(len(ix.xs), func(lo, hi int) {
+		for i := lo; i < hi; i++ {
+			a, b := ix.cellOf(ix.xs[i], ix.ys[i])
+			cells[i] = int32(b*ix.nx + a)
+		}
+	})
+	for _, c := range cells {
 		ix.start[c+1]++
 	}
 	for c := 0; c < nc; c++ {
@@ -67,9 +70,12 @@ func (ix *pointIndex) fill() {
 		fillAt[c]++
 	}
 	ix.sx, ix.sy = make([]float64, len(ix.xs)), make([]float64, len(ix.xs))
-	for k, i := range ix.idx {
-		ix.sx[k], ix.sy[k] = ix.xs[i], ix.ys[i]
-	}
+	parallelRange(len(ix.idx), func(lo, hi int) {
+		for k := lo; k < hi; k++ {
+			i := ix.idx[k]
+			ix.sx[k], ix.sy[k] = ix.xs[i], ix.ys[i]
+		}
+	})
 }
 
 // cellOf returns the cell holding (x, y), clamped to the grid.

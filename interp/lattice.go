@@ -2,6 +2,7 @@ package interp
 
 import (
 	"math"
+	"sync/atomic"
 )
 
 // Growth of an under-filled or collinear patch: its radius is multiplied
@@ -23,7 +24,7 @@ var fitMargin = 2.0
 // of its lattice cell. It must exceed 1 so that the disks cover the box;
 // the larger it is, the more patches overlap at each point: about
 // π·coverRatio²/2 of them, each costing a local evaluation.
-var coverRatio = 1.414
+var coverRatio = 1.2
 
 // lattice is the regular layout of patch centres over the readings'
 // bounding box (scaled coordinates): na × nb cells of hx × hy, one patch
@@ -59,33 +60,72 @@ func (l lattice) centre(a, b int) (x, y float64) {
 
 // assign finds each patch's readings, grows or drops patches as needed,
 // and lays the patches out in lf (coordinates, members, room for the
-// coefficients).
+// coefficients), in lattice order. Rows of the lattice are searched on
+// all cores, then copied into place at their offsets, also in parallel.
 func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit) {
-	est := l.na * l.nb * int(localTarget*1.25)
-	lf.px, lf.py = make([]float64, 0, est), make([]float64, 0, est)
-	lf.coef, lf.member = make([]float64, 0, est), make([]int32, 0, est)
-	lf.patches = make([]patch, 0, l.na*l.nb)
-	var buf []int32
-	for b := 0; b < l.nb; b++ {
-		for a := 0; a < l.na; a++ {
-			cx, cy := l.centre(a, b)
-			if !ix.anyWithin(cx, cy, l.rad0) {
-				continue // an empty base disk: no patch (holes, corners)
-			}
-			buf = ix.within(buf[:0], cx, cy, fitMargin*l.rad0)
-			idx, frad := growPatch(ix, ds, cx, cy, fitMargin*l.rad0, buf)
-			if idx == nil {
-				continue
-			}
-			lf.addPatch(ds, cx, cy, frad/fitMargin, frad, idx)
-		}
+	type rowOut struct {
+		patches []patch // lo, hi index members
+		members []int32
 	}
+	rows := make([]rowOut, l.nb)
+	var next atomic.Int64
+	parallelRange(2*l.nb, func(_, _ int) {
+		var buf []int32
+		for {
+			b := int(next.Add(1) - 1)
+			if b >= l.nb {
+				return
+			}
+			r := &rows[b]
+			r.members = make([]int32, 0, int(float64(l.na)*localTarget*1.25))
+			for a := 0; a < l.na; a++ {
+				cx, cy := l.centre(a, b)
+				if !ix.anyWithin(cx, cy, l.rad0) {
+					continue // an empty base disk: no patch (holes, corners)
+				}
+				buf = ix.within(buf[:0], cx, cy, fitMargin*l.rad0)
+				idx, frad := growPatch(ix, ds, cx, cy, fitMargin*l.rad0, buf)
+				if idx == nil {
+					continue
+				}
+				lo := int32(len(r.members))
+				r.members = append(r.members, idx...)
+				r.patches = append(r.patches, patch{cx: cx, cy: cy, rad: frad / fitMargin, frad: frad, lo: lo, hi: int32(len(r.members))})
+			}
+		}
+	})
+	pOff, mOff := make([]int, l.nb+1), make([]int, l.nb+1)
+	for b, r := range rows {
+		pOff[b+1], mOff[b+1] = pOff[b]+len(r.patches), mOff[b]+len(r.members)
+	}
+	nm := mOff[l.nb]
+	lf.patches = make([]patch, pOff[l.nb])
+	lf.px, lf.py, lf.coef = make([]float64, nm), make([]float64, nm), make([]float64, nm)
+	lf.member = make([]int32, nm)
+	parallelRange(l.nb, func(lo, hi int) {
+		for b := lo; b < hi; b++ {
+			r := &rows[b]
+			base := int32(mOff[b])
+			copy(lf.member[base:], r.members)
+			for j, p := range r.patches {
+				for k := p.lo; k < p.hi; k++ {
+					i := r.members[k]
+					lf.px[base+k] = (ds.x[i] - p.cx) / p.frad
+					lf.py[base+k] = (ds.y[i] - p.cy) / p.frad
+				}
+				p.lo, p.hi = p.lo+base, p.hi+base
+				lf.patches[pOff[b]+j] = p
+			}
+			rows[b] = rowOut{}
+		}
+	})
 }
 
 // growPatch returns the readings of the patch at (cx, cy) and its fit
 // radius: rad0 if that holds localMin readings not on one line, else a
 // radius grown by patchGrow steps; nil if even patchGrowMax × rad0 fails.
-// A patch over localMax readings keeps its localMax nearest.
+// A patch over localMax readings keeps its localMax nearest. The result
+// may share first's storage.
 func growPatch(ix *pointIndex, ds *dataset, cx, cy, rad0 float64, first []int32) ([]int32, float64) {
 	idx, rad := first, rad0
 	for len(idx) < localMin || pointsCollinear(ds, idx) {
@@ -93,16 +133,15 @@ func growPatch(ix *pointIndex, ds *dataset, cx, cy, rad0 float64, first []int32)
 		if rad > patchGrowMax*rad0 {
 			return nil, 0
 		}
-		idx = ix.within(idx[:0:0], cx, cy, rad)
+		idx = ix.within(idx[:0], cx, cy, rad)
 	}
-	out := append([]int32(nil), idx...)
-	if len(out) > localMax {
-		sortByDistance(out, ds.x, ds.y, cx, cy)
-		out = out[:localMax]
-		last := out[localMax-1]
+	if len(idx) > localMax {
+		sortByDistance(idx, ds.x, ds.y, cx, cy)
+		idx = idx[:localMax]
+		last := idx[localMax-1]
 		rad = math.Hypot(ds.x[last]-cx, ds.y[last]-cy) * (1 + 1e-9)
 	}
-	return out, rad
+	return idx, rad
 }
 
 // pointsCollinear reports whether the readings idx lie on one line (their
@@ -121,18 +160,6 @@ func pointsCollinear(ds *dataset, idx []int32) bool {
 	}
 	tr, det := sxx+syy, sxx*syy-sxy*sxy
 	return tr <= 0 || det <= 1e-8*tr*tr
-}
-
-// addPatch appends a patch with its readings in patch coordinates.
-func (lf *localFit) addPatch(ds *dataset, cx, cy, rad, frad float64, idx []int32) {
-	lo := int32(len(lf.px))
-	for _, k := range idx {
-		lf.px = append(lf.px, (ds.x[k]-cx)/frad)
-		lf.py = append(lf.py, (ds.y[k]-cy)/frad)
-		lf.member = append(lf.member, k)
-		lf.coef = append(lf.coef, 0)
-	}
-	lf.patches = append(lf.patches, patch{cx: cx, cy: cy, rad: rad, frad: frad, lo: lo, hi: int32(len(lf.px))})
 }
 
 // cellMap lists, for each lattice cell, the patches whose disks meet it
@@ -163,13 +190,15 @@ func newCellMap(l lattice, ps []patch) cellMap {
 	}
 	pix := newPointIndex(pcx, pcy, 2)
 	cm.near = make([]int32, l.na*l.nb)
-	for b := 0; b < l.nb; b++ {
-		for a := 0; a < l.na; a++ {
-			x, y := l.centre(a, b)
-			j, _ := pix.nearest(x, y, -1)
-			cm.near[b*l.na+a] = int32(j)
+	parallelRange(l.nb, func(lo, hi int) {
+		for b := lo; b < hi; b++ {
+			for a := 0; a < l.na; a++ {
+				x, y := l.centre(a, b)
+				j, _ := pix.nearest(x, y, -1)
+				cm.near[b*l.na+a] = int32(j)
+			}
 		}
-	}
+	})
 	return cm
 }
 

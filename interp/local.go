@@ -22,7 +22,7 @@ import (
 // 32-neighbour spline centred on every node; localTarget = 48 with
 // fitMargin = 2 gives 0.055 mV for about 1.7 times the fitting work and
 // 1.2 times the evaluation work.
-var localTarget = 48.0
+var localTarget = 56.0
 
 const (
 	localMin = 12

@@ -71,12 +71,26 @@ func (d *dataset) merge(xs, ys, vs []float64) {
 	for i := range leader {
 		leader[i] = -1
 	}
+	// Most readings have no other within tol; finding them is independent
+	// per reading and runs on all cores. Only the others need the ordered
+	// pass below, whose outcome depends on the order of visits.
+	alone := make([]bool, n)
+	parallelRange(n, func(lo, hi int) {
+		var buf []int32
+		for i := lo; i < hi; i++ {
+			buf = ix.within(buf[:0], xs[i], ys[i], tol)
+			alone[i] = len(buf) <= 1
+		}
+	})
 	var buf []int32
 	for _, i := range ix.idx { // cell order, for memory locality
 		if leader[i] >= 0 {
 			continue
 		}
 		leader[i] = i
+		if alone[i] {
+			continue // no reading within tol, so none to claim
+		}
 		buf = ix.within(buf[:0], xs[i], ys[i], tol)
 		for _, j := range buf {
 			if leader[j] < 0 {
