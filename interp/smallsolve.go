@@ -30,8 +30,8 @@ type smallSystem struct {
 	pos  []int     // inverse of perm
 	xs   []float64 // coordinates in pivot order
 	ys   []float64
-	l    [3][]float64 // L: barycentric coordinates of the non-pivots
-	mk   [3][]float64 // A₁₂ − ½A₁₁L
+	l    [3][]float64  // L: barycentric coordinates of the non-pivots
+	mk   [3][]float64  // A₁₂ − ½A₁₁L
 	p1   [3][3]float64 // inverse of P₁ = [1 x y] at the pivots
 	flat bool          // the pivots (hence all readings) are nearly collinear
 	g    []float64     // scratch vector
