@@ -8,15 +8,18 @@ const logBits = 10
 // logTable holds log(c) and 1/c for c = 1 + i/2^logBits, i = 0 … 2^logBits,
 // for tableLog. Each basis points to one (16 KiB), built by newLogTable.
 type logTable struct {
-	inv [1<<logBits + 1]float64
-	lg  [1<<logBits + 1]float64
+	e [1<<logBits + 1]logEntry
 }
+
+// logEntry is one row of the table, 1/c and log c side by side so that a
+// lookup touches one cache line.
+type logEntry struct{ inv, lg float64 }
 
 func newLogTable() *logTable {
 	t := &logTable{}
-	for i := range t.inv {
+	for i := range t.e {
 		c := 1 + float64(i)/(1<<logBits)
-		t.inv[i], t.lg[i] = 1/c, math.Log(c)
+		t.e[i] = logEntry{inv: 1 / c, lg: math.Log(c)}
 	}
 	return t
 }
@@ -41,11 +44,12 @@ func (lt *logTable) log(x float64) float64 {
 	}
 	i := int(bits>>(52-logBits)) & (1<<logBits - 1)
 	m := math.Float64frombits(bits&(1<<52-1) | 1023<<52)
-	t := m*lt.inv[i] - 1
+	e := lt.e[i]
+	t := m*e.inv - 1
 	t2 := t * t
 	p := (t + t2*(-0.5+t*(1.0/3))) + t2*t2*(-0.25+t*0.2)
 	k := float64(exp)
-	return k*ln2Hi + (lt.lg[i] + (p + k*ln2Lo))
+	return k*ln2Hi + (e.lg + (p + k*ln2Lo))
 }
 
 // logSubnormal is the logarithm of a subnormal x, which is rare enough to

@@ -35,11 +35,12 @@ func tpsRow(row, xs, ys []float64, xi, yi float64, lt *logTable) {
 		} else {
 			i := int(bits>>(52-logBits)) & (1<<logBits - 1)
 			m := math.Float64frombits(bits&(1<<52-1) | 1023<<52)
-			t := m*lt.inv[i] - 1
+			e := lt.e[i]
+			t := m*e.inv - 1
 			t2 := t * t
 			p := (t + t2*(-0.5+t*(1.0/3))) + t2*t2*(-0.25+t*0.2)
 			k := float64(exp)
-			l = k*ln2Hi + (lt.lg[i] + (p + k*ln2Lo))
+			l = k*ln2Hi + (e.lg + (p + k*ln2Lo))
 		}
 		row[j] = 0.5 * r2 * l
 	}
@@ -67,11 +68,12 @@ func tpsValueGrad(c, xs, ys []float64, u, v float64, lt *logTable) (s, su, sv fl
 		} else {
 			i := int(bits>>(52-logBits)) & (1<<logBits - 1)
 			m := math.Float64frombits(bits&(1<<52-1) | 1023<<52)
-			t := m*lt.inv[i] - 1
+			e := lt.e[i]
+			t := m*e.inv - 1
 			t2 := t * t
 			p := (t + t2*(-0.5+t*(1.0/3))) + t2*t2*(-0.25+t*0.2)
 			k := float64(exp)
-			l = k*ln2Hi + (lt.lg[i] + (p + k*ln2Lo))
+			l = k*ln2Hi + (e.lg + (p + k*ln2Lo))
 		}
 		s += cj * 0.5 * r2 * l
 		g := cj * (l + 1)
