@@ -5,7 +5,6 @@ import (
 	"io"
 	"math"
 	"runtime"
-	"strconv"
 	"sync"
 
 	"isofield/interp"
@@ -113,9 +112,9 @@ func writeChunked(w io.Writer, n int, format func(buf []byte, lo, hi int) []byte
 func appendGridRow(buf []byte, g *interp.Grid, i, j int, flagged []bool, extra []Column) []byte {
 	k := g.Index(i, j)
 	x, y := g.Node(i, j)
-	buf = strconv.AppendFloat(buf, x, 'g', -1, 64)
+	buf = appendShortest(buf, x)
 	buf = append(buf, ',')
-	buf = strconv.AppendFloat(buf, y, 'g', -1, 64)
+	buf = appendShortest(buf, y)
 	v := g.V[k]
 	if g.Mask[k] || math.IsNaN(v) {
 		buf = append(buf, ",,,,,0"...)
@@ -143,7 +142,7 @@ func appendCell(buf []byte, v float64) []byte {
 	if math.IsNaN(v) {
 		return buf
 	}
-	return strconv.AppendFloat(buf, v, 'g', -1, 64)
+	return appendShortest(buf, v)
 }
 
 func appendSep(buf []byte, k int) []byte {

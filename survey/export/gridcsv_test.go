@@ -204,17 +204,36 @@ func TestReadGridCSVErrors(t *testing.T) {
 	}
 }
 
+// BenchmarkWriteGridCSV writes square grids at a projected origin and
+// 0.1 m spacing (short-decimal coordinates, a northing in e notation), and
+// the shape of `isofield grid --spacing 1` over a 1000 m × 750 m site:
+// integer coordinates and an integer band column.
 func BenchmarkWriteGridCSV(b *testing.B) {
+	type benchCase struct {
+		name  string
+		g     *interp.Grid
+		extra []Column
+	}
+	var cases []benchCase
 	for _, n := range []int{100, 1000} {
 		g := closedFormGrid(654321.5, 5987654.25, 0.1, n, n, 1000, func(i, j int) bool { return i < n/10 })
-		flags := make([]bool, g.Len())
+		cases = append(cases, benchCase{"nodes=" + strconv.Itoa(n*n), g, nil})
+	}
+	g := closedFormGrid(0, 0, 1, 1000, 750, 1000, nil)
+	band := make([]float64, g.Len())
+	for k, v := range g.V {
+		band[k] = math.Floor(v / 200)
+	}
+	cases = append(cases, benchCase{"1000x750,unit-spacing,band", g, []Column{{Name: "band", Values: band}}})
+	for _, c := range cases {
+		flags := make([]bool, c.g.Len())
 		for k := range flags {
 			flags[k] = k%11 == 0
 		}
-		b.Run("nodes="+strconv.Itoa(n*n), func(b *testing.B) {
+		b.Run(c.name, func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
-				if err := WriteGridCSV(io.Discard, g, "mV", flags, nil); err != nil {
+				if err := WriteGridCSV(io.Discard, c.g, "mV", flags, c.extra); err != nil {
 					b.Fatal(err)
 				}
 			}
