@@ -48,7 +48,7 @@ func WriteMatrix(w io.Writer, g *interp.Grid, value func(k int) float64) error {
 			if math.IsNaN(v) {
 				buf = append(buf, "NaN"...)
 			} else {
-				buf = strconv.AppendFloat(buf, v, 'g', -1, 64)
+				buf = appendShortest(buf, v)
 			}
 		}
 		buf = append(buf, '\n')
