@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -70,18 +71,31 @@ func (c *checker) applyDrift(d *DriftCurve, pred gointerp.Predictor, t []float64
 		axis = "time"
 	}
 	reason := fmt.Sprintf("drift correction from base station %s (%v in %s)", d.Base, d.Method, axis)
-	for i := range c.s.Readings {
-		ti := t[i]
-		if ti < lo || ti > hi {
-			d.Outside++
-			ti = math.Min(math.Max(ti, lo), hi)
+	n := len(c.s.Readings)
+	corr, notes := make([]float64, n), make([]string, n)
+	unit := c.unit()
+	forChunks(n, 4096, func(first, end int) {
+		for i := first; i < end; i++ {
+			ti := t[i]
+			if ti < lo || ti > hi {
+				ti = math.Min(math.Max(ti, lo), hi)
+			}
+			corr[i] = pred.Predict(ti) - b0
+			if corr[i] != 0 {
+				notes[i] = fmt.Sprintf("drift %+.4g %s removed", corr[i], unit)
+			}
 		}
-		corr := pred.Predict(ti) - b0
-		if corr == 0 {
+	})
+	c.res.Log = slices.Grow(c.res.Log, n)
+	for i := range n {
+		if t[i] < lo || t[i] > hi {
+			d.Outside++
+		}
+		if corr[i] == 0 {
 			continue
 		}
-		c.setValue(i, c.res.Corrected[i]-corr, KindDrift, reason)
-		c.note(i, fmt.Sprintf("drift %+.4g %s removed", corr, c.unit()))
+		c.setValue(i, c.res.Corrected[i]-corr[i], KindDrift, reason)
+		c.note(i, notes[i])
 	}
 }
 
@@ -146,7 +160,7 @@ func (c *checker) baseMembers(prop int) ([]int, string, error) {
 	if len(ids) == 0 {
 		return nil, "", fmt.Errorf("--base %q: %w", c.set.Base, ErrNoBase)
 	}
-	seen := map[int]bool{}
+	seen := make([]bool, len(c.s.Readings))
 	var members []int
 	for _, i := range ids {
 		g := c.res.Group[i]

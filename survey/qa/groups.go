@@ -1,8 +1,10 @@
 package qa
 
 import (
+	"cmp"
 	"fmt"
 	"math"
+	"slices"
 )
 
 // unionFind is a disjoint-set forest over reading indexes.
@@ -37,9 +39,6 @@ func (u unionFind) union(i, j int) {
 	u[b] = a
 }
 
-// cell is a square of side RepeatDist used to find near positions.
-type cell struct{ i, j int64 }
-
 // group forms the repeat groups: readings sharing a non-empty id, or lying
 // within RepeatDist of each other (unless RepeatDist is negative). Readings
 // with no partner stay ungrouped (Group −1).
@@ -47,7 +46,13 @@ func (c *checker) group() {
 	n := len(c.s.Readings)
 	u := newUnionFind(n)
 	if !c.set.IgnoreIDs {
-		first := map[string]int{}
+		ids := 0
+		for _, rd := range c.s.Readings {
+			if rd.ID != "" {
+				ids++
+			}
+		}
+		first := make(map[string]int, ids)
 		for i, rd := range c.s.Readings {
 			if rd.ID == "" {
 				continue
@@ -83,34 +88,119 @@ func (c *checker) group() {
 	c.checkGroupPlaces()
 }
 
-// joinNear unions readings within d metres, hashing positions into cells
-// of side d so that only the 3 × 3 neighbouring cells are searched.
+// nearCell is a reading in its square cell of side RepeatDist, cells
+// numbered by floor(x / d) and floor(y / d).
+type nearCell struct {
+	i, j int64
+	r    int32 // the reading
+}
+
+// cmpCell orders cells by column, then row, then reading.
+func cmpCell(a, b nearCell) int {
+	switch {
+	case a.i != b.i:
+		return cmp.Compare(a.i, b.i)
+	case a.j != b.j:
+		return cmp.Compare(a.j, b.j)
+	}
+	return cmp.Compare(a.r, b.r)
+}
+
+// joinNear unions readings within d metres. Readings are put in square
+// cells of side d, so that only readings in neighbouring cells need be
+// compared: sorted by cell, each cell's readings are compared with one
+// another and with those of the cells above it, and of the three cells of
+// the next column beside and diagonal to it, each pair of neighbouring
+// cells once. The groups do not depend on the order of the unions.
 func (c *checker) joinNear(u unionFind, d float64) {
-	head := make(map[cell]int32, len(c.s.Readings)) // last reading in each cell
-	next := make([]int32, len(c.s.Readings))        // previous reading in the same cell
-	d2 := d * d
+	cells := make([]nearCell, 0, len(c.s.Readings))
 	for i, rd := range c.s.Readings {
 		if math.IsNaN(rd.X) || math.IsNaN(rd.Y) || math.IsInf(rd.X, 0) || math.IsInf(rd.Y, 0) {
 			continue
 		}
-		k := cell{int64(math.Floor(rd.X / d)), int64(math.Floor(rd.Y / d))}
-		for di := int64(-1); di <= 1; di++ {
-			for dj := int64(-1); dj <= 1; dj++ {
-				j, ok := head[cell{k.i + di, k.j + dj}]
-				for ok && j >= 0 {
-					o := c.s.Readings[j]
-					if dx, dy := rd.X-o.X, rd.Y-o.Y; dx*dx+dy*dy <= d2 {
-						u.union(i, int(j))
-					}
-					j = next[j]
-				}
-			}
+		cells = append(cells, nearCell{int64(math.Floor(rd.X / d)), int64(math.Floor(rd.Y / d)), int32(i)})
+	}
+	slices.SortFunc(cells, cmpCell)
+	d2 := d * d
+	next := 0 // first entry of the next column at or after row j − 1
+	for lo := 0; lo < len(cells); {
+		a := cells[lo]
+		hi := lo + 1
+		for hi < len(cells) && cells[hi].i == a.i && cells[hi].j == a.j {
+			hi++
 		}
-		prev, ok := head[k]
-		if !ok {
-			prev = -1
+		c.joinWithin(u, d2, cells[lo:hi])
+		if hi < len(cells) && cells[hi].i == a.i && cells[hi].j == up(a.j) {
+			c.joinCells(u, d2, cells[lo:hi], cellRun(cells, hi))
 		}
-		next[i], head[k] = prev, int32(i)
+		if a.i == math.MaxInt64 {
+			lo = hi
+			continue
+		}
+		below := nearCell{i: a.i + 1, j: down(a.j), r: math.MinInt32}
+		for next < len(cells) && cmpCell(cells[next], below) < 0 {
+			next++
+		}
+		for k := next; k < len(cells) && cells[k].i == a.i+1 && cells[k].j <= up(a.j); {
+			run := cellRun(cells, k)
+			c.joinCells(u, d2, cells[lo:hi], run)
+			k += len(run)
+		}
+		lo = hi
+	}
+}
+
+// up and down are j + 1 and j − 1 within the int64 range: a position too
+// far out for it has its cell at the range's end.
+func up(j int64) int64 {
+	if j == math.MaxInt64 {
+		return j
+	}
+	return j + 1
+}
+
+func down(j int64) int64 {
+	if j == math.MinInt64 {
+		return j
+	}
+	return j - 1
+}
+
+// cellRun returns the entries of the cell of cells[k] from k on.
+func cellRun(cells []nearCell, k int) []nearCell {
+	e := k + 1
+	for e < len(cells) && cells[e].i == cells[k].i && cells[e].j == cells[k].j {
+		e++
+	}
+	return cells[k:e]
+}
+
+// joinWithin unions the readings of one cell's entries that lie within
+// sqrt(d2) of each other.
+func (c *checker) joinWithin(u unionFind, d2 float64, a []nearCell) {
+	for p, e := range a {
+		for _, f := range a[p+1:] {
+			c.joinPair(u, d2, e, f)
+		}
+	}
+}
+
+// joinCells unions the readings of two cells' entries a and b that lie
+// within sqrt(d2) of each other.
+func (c *checker) joinCells(u unionFind, d2 float64, a, b []nearCell) {
+	for _, e := range a {
+		for _, f := range b {
+			c.joinPair(u, d2, e, f)
+		}
+	}
+}
+
+// joinPair unions the readings of e and f if they lie within sqrt(d2).
+func (c *checker) joinPair(u unionFind, d2 float64, e, f nearCell) {
+	i, j := int(max(e.r, f.r)), int(min(e.r, f.r))
+	ri, rj := &c.s.Readings[i], &c.s.Readings[j]
+	if dx, dy := ri.X-rj.X, ri.Y-rj.Y; dx*dx+dy*dy <= d2 {
+		u.union(i, j)
 	}
 }
 

@@ -2,9 +2,7 @@ package qa
 
 import (
 	"math"
-	"runtime"
 	"sort"
-	"sync"
 
 	"gonum.org/v1/gonum/spatial/kdtree"
 )
@@ -38,8 +36,7 @@ func (p place) Dims() int { return 2 }
 
 func (p place) Distance(c kdtree.Comparable) float64 {
 	q := c.(place)
-	dx, dy := p.x-q.x, p.y-q.y
-	return dx*dx + dy*dy
+	return dist2(p.x, p.y, q.x, q.y)
 }
 
 // places is a k-d tree's collection of spots.
@@ -70,11 +67,14 @@ func (p plane) Slice(start, end int) kdtree.SortSlicer {
 	return plane{p.places[start:end], p.d}
 }
 
-// neighbourIndex finds the nearest spots of a spot, caching the answers.
+// neighbourIndex finds the nearest spots of a spot, caching the answers
+// of nearest. Its searches use a bucket grid (grid.go), or gonum's k-d
+// tree for layouts no grid divides evenly; both give the same answers.
 type neighbourIndex struct {
-	tree  *kdtree.Tree
 	spots []spot
-	memo  map[int][]int
+	grid  *spotGrid     // nil when the tree is used
+	tree  *kdtree.Tree  // nil when the grid is used
+	memo  map[int][]int // the answers of nearest
 	dist  map[int][]float64
 	reach float64   // squared distance limit
 	h2    float64   // squared typical spacing
@@ -82,11 +82,20 @@ type neighbourIndex struct {
 }
 
 func newNeighbourIndex(spots []spot) *neighbourIndex {
-	ps := make(places, len(spots))
-	for k, s := range spots {
-		ps[k] = place{s.x, s.y, k}
+	return newNeighbourIndexWith(spots, newSpotGrid(spots))
+}
+
+// newNeighbourIndexWith is newNeighbourIndex searching with the given
+// grid, or with a k-d tree when grid is nil.
+func newNeighbourIndexWith(spots []spot, grid *spotGrid) *neighbourIndex {
+	n := &neighbourIndex{spots: spots, grid: grid, memo: map[int][]int{}, dist: map[int][]float64{}}
+	if grid == nil {
+		ps := make(places, len(spots))
+		for k, s := range spots {
+			ps[k] = place{s.x, s.y, k}
+		}
+		n.tree = kdtree.New(ps, false)
 	}
-	n := &neighbourIndex{tree: kdtree.New(ps, false), spots: spots, memo: map[int][]int{}, dist: map[int][]float64{}}
 	n.nn2 = n.nearestDistances()
 	if len(n.nn2) > 0 {
 		n.h2 = median(append([]float64(nil), n.nn2...))
@@ -99,30 +108,39 @@ func newNeighbourIndex(spots []spot) *neighbourIndex {
 // other spot (+Inf for a lone spot), using all cores.
 func (n *neighbourIndex) nearestDistances() []float64 {
 	d := make([]float64, len(n.spots))
-	workers := min(runtime.GOMAXPROCS(0), max(1, len(d)/1000))
-	var wg sync.WaitGroup
-	for w := range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for k := w; k < len(d); k += workers {
-				keep := kdtree.NewNKeeper(2)
-				n.tree.NearestSet(keep, place{n.spots[k].x, n.spots[k].y, k})
+	if n.grid != nil {
+		forChunks(len(d), 2048, func(lo, hi int) {
+			var b nearBuf
+			for k := lo; k < hi; k++ {
+				n.grid.nearest(&b, int32(k), n.spots[k].x, n.spots[k].y, 1)
 				d[k] = math.Inf(1)
-				for _, c := range keep.Heap {
-					if c.Comparable != nil && c.Comparable.(place).k != k {
-						d[k] = math.Min(d[k], c.Dist)
-					}
+				if b.full() {
+					d[k] = b.d2[0]
 				}
 			}
-		}()
+		})
+		return d
 	}
-	wg.Wait()
+	forChunks(len(d), 2048, func(lo, hi int) {
+		keep := kdtree.NewNKeeper(2)
+		for k := lo; k < hi; k++ {
+			keep.Heap = keep.Heap[:1]
+			keep.Heap[0] = kdtree.ComparableDist{Dist: math.Inf(1)}
+			n.tree.NearestSet(keep, place{n.spots[k].x, n.spots[k].y, k})
+			d[k] = math.Inf(1)
+			for _, c := range keep.Heap {
+				if c.Comparable != nil && c.Comparable.(place).k != k {
+					d[k] = math.Min(d[k], c.Dist)
+				}
+			}
+		}
+	})
 	return d
 }
 
 // nearest returns the indexes of the kNeighbours spots nearest to spot k,
-// not counting k itself, nearest first, and their squared distances.
+// not counting k itself, nearest first, and their squared distances. It
+// caches its answers and is not safe for concurrent use.
 func (n *neighbourIndex) nearest(k int) ([]int, []float64) {
 	if nb, ok := n.memo[k]; ok {
 		return nb, n.dist[k]
@@ -158,11 +176,26 @@ func (n *neighbourIndex) gapFactor(k int) float64 {
 // nearestN returns the indexes of the m spots nearest to spot k, not
 // counting k itself, nearest first, and their squared distances. Spots at
 // equal distances come in index order, so that the answer is the same on
-// every run: gonum's k-d tree picks its pivots at random, and which of
-// several equally distant spots a bounded search keeps depends on the
-// tree. The search therefore runs twice: once for the distance of the
-// m-th nearest, once for every spot within that distance.
+// every run and with either search. It is safe for concurrent use.
 func (n *neighbourIndex) nearestN(k, m int) ([]int, []float64) {
+	if n.grid == nil {
+		return n.treeNearestN(k, m)
+	}
+	var b nearBuf
+	n.grid.nearest(&b, int32(k), n.spots[k].x, n.spots[k].y, m)
+	nb, d2 := make([]int, len(b.k)), make([]float64, len(b.k))
+	for i, j := range b.k {
+		nb[i], d2[i] = int(j), b.d2[i]
+	}
+	return nb, d2
+}
+
+// treeNearestN is nearestN with the k-d tree. gonum's tree picks its
+// pivots at random, and which of several equally distant spots a bounded
+// search keeps depends on the tree. The search therefore runs twice: once
+// for the distance of the m-th nearest, once for every spot within that
+// distance.
+func (n *neighbourIndex) treeNearestN(k, m int) ([]int, []float64) {
 	q := place{n.spots[k].x, n.spots[k].y, k}
 	keep := kdtree.NewNKeeper(m + 1)
 	n.tree.NearestSet(keep, q)

@@ -17,6 +17,9 @@ type checker struct {
 	// hand is true for readings excluded by hand at the end of the edits.
 	hand     []bool
 	progress func(done, total int) // of the spike fits; may be nil
+	// treeOnly makes the neighbour searches use the k-d tree, never the
+	// grid (for tests that compare the two).
+	treeOnly bool
 }
 
 // Run checks and corrects the survey's readings with the given settings
@@ -44,23 +47,37 @@ func RunProgress(ctx context.Context, s *survey.Survey, set Settings, edits []Ed
 	}
 	c := newChecker(s, set.effective(s.Unit))
 	c.progress = progress
+	return c.run(ctx, edits)
+}
+
+// run makes the checks in order, the hand edits last.
+func (c *checker) run(ctx context.Context, edits []Edit) (*Result, error) {
 	plan := c.resolveEdits(edits)
-	if err := c.convertReferences(); err != nil {
+	if err := c.corrections(); err != nil {
 		return nil, err
 	}
-	if err := c.scaleCurrent(); err != nil {
-		return nil, err
-	}
-	c.group()
-	if err := c.drift(); err != nil {
-		return nil, err
-	}
-	c.repeats()
 	if err := c.spikes(ctx); err != nil {
 		return nil, err
 	}
 	c.applyEdits(plan)
 	return c.res, nil
+}
+
+// corrections makes the checks before the spike check: reference
+// conversion, current scaling, repeat groups, drift and repeats.
+func (c *checker) corrections() error {
+	if err := c.convertReferences(); err != nil {
+		return err
+	}
+	if err := c.scaleCurrent(); err != nil {
+		return err
+	}
+	c.group()
+	if err := c.drift(); err != nil {
+		return err
+	}
+	c.repeats()
+	return nil
 }
 
 func newChecker(s *survey.Survey, set Settings) *checker {

@@ -45,7 +45,12 @@ func (c *checker) spikes(ctx context.Context) error {
 		c.remark("spike check skipped: %d spots to compare, at least %d needed", len(spots), minSpikeSpots)
 		return nil
 	}
-	nb := newNeighbourIndex(spots)
+	var nb *neighbourIndex
+	if c.treeOnly {
+		nb = newNeighbourIndexWith(spots, nil)
+	} else {
+		nb = newNeighbourIndex(spots)
+	}
 	out := make([]bool, len(spots))
 	var resid []float64
 	var steep []bool
@@ -74,8 +79,8 @@ func (c *checker) spikes(ctx context.Context) error {
 // spots returns the places the spike fit uses: readings not suspect and
 // not excluded by hand, one per agreeing repeat group.
 func (c *checker) spots() []spot {
-	var sp []spot
-	done := map[int]bool{}
+	sp := make([]spot, 0, len(c.s.Readings))
+	done := make([]bool, len(c.res.Repeats))
 	for i, rd := range c.s.Readings {
 		if c.hand[i] || c.res.Status[i] != OK {
 			continue
@@ -95,7 +100,7 @@ func (c *checker) spots() []spot {
 // residual: the leave-one-out residual for spots in the fit, the
 // out-of-sample residual for the others.
 func (c *checker) residuals(ctx context.Context, spots []spot, out []bool) ([]float64, *interp.FitInfo, error) {
-	var xs, ys, vs []float64
+	xs, ys, vs := make([]float64, 0, len(spots)), make([]float64, 0, len(spots)), make([]float64, 0, len(spots))
 	for k, p := range spots {
 		if !out[k] {
 			xs, ys, vs = append(xs, p.x), append(ys, p.y), append(vs, p.v)
@@ -143,16 +148,6 @@ func robust(resid []float64, out []bool) (med, scale float64) {
 	return med, madToSigma * median(in)
 }
 
-// median returns the median of v, reordering v.
-func median(v []float64) float64 {
-	sort.Float64s(v)
-	n := len(v)
-	if n%2 == 1 {
-		return v[n/2]
-	}
-	return (v[n/2-1] + v[n/2]) / 2
-}
-
 // flag returns which spots are spikes given the residuals: candidates
 // whose deviation beyond the curvature allowance (see unexplained) is beyond
 // both limits, unless one of their neighbours is a candidate of the same
@@ -196,15 +191,17 @@ func (c *checker) flag(spots []spot, out []bool, resid []float64, nb *neighbourI
 // per candidate.
 func (c *checker) unexplained(out []bool, resid []float64, nb *neighbourIndex, med, scale float64) (dev, allow []float64) {
 	dev, allow = make([]float64, len(resid)), make([]float64, len(resid))
-	for k, r := range resid {
-		g := nb.gapFactor(k)
-		d := r - med
-		if a := math.Abs(d) / g; a > c.set.SpikeK*scale && a > c.set.RepeatTol {
-			allow[k] = nb.curvatureAllowance(k, out, scale)
-			d = math.Copysign(math.Max(0, math.Abs(d)-allow[k]), d)
+	forChunks(len(resid), 4096, func(lo, hi int) {
+		for k := lo; k < hi; k++ {
+			g := nb.gapFactor(k)
+			d := resid[k] - med
+			if a := math.Abs(d) / g; a > c.set.SpikeK*scale && a > c.set.RepeatTol {
+				allow[k] = nb.curvatureAllowance(k, out, scale)
+				d = math.Copysign(math.Max(0, math.Abs(d)-allow[k]), d)
+			}
+			dev[k] = d / g
 		}
-		dev[k] = d / g
-	}
+	})
 	return dev, allow
 }
 
@@ -215,12 +212,13 @@ func (c *checker) markSpikes(spots []spot, out []bool, resid []float64, nb *neig
 	med, scale := robust(resid, out)
 	c.res.SpikeScale = scale
 	dev, allow := c.unexplained(out, resid, nb, med, scale)
+	var one [1]int
 	for k, p := range spots {
 		z := robustZ(dev[k], scale)
-		members := c.spotReadings(p.reading)
-		reason := fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, robust z %+.1f", resid[k], c.unit(), z)
-		if allow[k] > 0 {
-			reason = fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, of which local curvature explains up to %.3g %s, robust z %+.1f", resid[k], c.unit(), allow[k], c.unit(), z)
+		members := c.spotReadings(p.reading, one[:0])
+		var reason string // only spikes have one
+		if out[k] {
+			reason = spikeReason(resid[k], allow[k], z, c.unit())
 		}
 		for _, i := range members {
 			c.res.Residual[i], c.res.Z[i] = resid[k], z
@@ -239,6 +237,15 @@ func (c *checker) markSpikes(spots []spot, out []bool, resid []float64, nb *neig
 	})
 }
 
+// spikeReason is the note of a spike: its residual r, the curvature
+// allowance a if there is one, and its robust z, in unit u.
+func spikeReason(r, a, z float64, u string) string {
+	if a > 0 {
+		return fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, of which local curvature explains up to %.3g %s, robust z %+.1f", r, u, a, u, z)
+	}
+	return fmt.Sprintf("disagrees with neighbours: leave-one-out residual %+.4g %s, robust z %+.1f", r, u, z)
+}
+
 // robustZ is d/scale, ±Inf for a zero scale (0 when d is 0 too).
 func robustZ(d, scale float64) float64 {
 	switch {
@@ -251,12 +258,12 @@ func robustZ(d, scale float64) float64 {
 }
 
 // spotReadings returns the readings a spot stands for: the live members of
-// its repeat group, or the reading alone.
-func (c *checker) spotReadings(i int) []int {
+// its repeat group, or the reading alone, in buf if it has room.
+func (c *checker) spotReadings(i int, buf []int) []int {
 	if g := c.res.Group[i]; g >= 0 {
 		return c.live(c.res.Repeats[g].Members)
 	}
-	return []int{i}
+	return append(buf[:0], i)
 }
 
 // markSteep notes the readings of spots that disagree with the fit
@@ -267,7 +274,7 @@ func (c *checker) markSteep(spots []spot, steep []bool, resid []float64) {
 			continue
 		}
 		reason := fmt.Sprintf("disagrees with the fit together with a neighbour (residual %+.4g %s): a feature finer than the reading spacing, not marked; consider readings in between", resid[k], c.unit())
-		for _, i := range c.spotReadings(p.reading) {
+		for _, i := range c.spotReadings(p.reading, nil) {
 			c.res.Steep = append(c.res.Steep, i)
 			c.note(i, reason)
 		}
