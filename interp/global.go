@@ -28,6 +28,11 @@ type globalFit struct {
 }
 
 func (g *globalFit) Value(x, y float64) float64 {
+	if g.b.k == ThinPlate {
+		// The same sums as Evaluate and Gradient, to the last bit.
+		v, _, _ := g.valueGrad(x, y)
+		return v
+	}
 	u, v := (x-g.cx)/g.s, (y-g.cy)/g.s
 	s := g.d[0] + g.d[1]*u + g.d[2]*v
 	b := g.b
@@ -49,6 +54,10 @@ func (g *globalFit) valueGrad(x, y float64) (val, dx, dy float64) {
 	val = g.d[0] + g.d[1]*u + g.d[2]*v
 	gu, gv := g.d[1], g.d[2]
 	b := g.b
+	if b.k == ThinPlate {
+		ks, ku, kv := tpsValueGrad(g.c, g.x, g.y, u, v, b.lt)
+		return val + ks, (gu + ku) / g.s, (gv + kv) / g.s
+	}
 	for i, ci := range g.c {
 		du, dv := u-g.x[i], v-g.y[i]
 		f, dr := b.phiD(du*du + dv*dv)
@@ -66,6 +75,10 @@ func kernelMatrix(x, y []float64, b basis) []float64 {
 	parallelRange(n, func(lo, hi int) {
 		for i := lo; i < hi; i++ {
 			row := a[i*n : i*n+n]
+			if b.k == ThinPlate {
+				tpsRow(row, x, y, x[i], y[i], b.lt)
+				continue
+			}
 			for j := range row {
 				du, dv := x[i]-x[j], y[i]-y[j]
 				row[j] = b.phi(du*du + dv*dv)
