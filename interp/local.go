@@ -16,13 +16,13 @@ import (
 // the fit radius (fitMargin × the base weight radius) at the survey's mean
 // density; patches with fewer than localMin grow until they have
 // localMin (and are not collinear); patches with more than localMax
-// shrink to their localMax nearest readings. On the 100,000-reading
-// half-space comparison (interp/BENCHMARKS.md) localTarget = 40 with
-// fitMargin = 1.5 gave an RMS error of 0.101 mV, above the 0.075 mV of a
-// 32-neighbour spline centred on every node; localTarget = 48 with
-// fitMargin = 2 gives 0.055 mV for about 1.7 times the fitting work and
-// 1.2 times the evaluation work.
-var localTarget = 56.0
+// shrink to their localMax nearest readings. localTarget, fitMargin,
+// coverRatio and the extender's thinning were chosen together by a sweep
+// on 100,000 readings of the half-space potential (interp/BENCHMARKS.md):
+// 52 readings, a margin of 2, a cover of 1.15 and thinning at the mean
+// spacing give an RMS error of 0.032 mV where the layout before them (48
+// readings, cover 1.41, no thinning) gave 0.063 mV, for less work.
+const localTarget = 52
 
 const (
 	localMin = 12
@@ -82,7 +82,7 @@ func fitLocalModel(ctx context.Context, ds *dataset, opt Options, progress func(
 	if shape == 0 {
 		shape = defaultShape(opt.Kernel, ds.h)
 	}
-	lf, lat, err := layoutLocal(ds)
+	lf, lat, err := layoutLocal(ds, opt.Kernel)
 	if err != nil {
 		return nil, err
 	}
@@ -135,12 +135,21 @@ func rmsFinite(e []float64) float64 {
 	return math.Sqrt(s / float64(n))
 }
 
-// layoutLocal lays out the patches over the readings.
-func layoutLocal(ds *dataset) (*localFit, lattice, error) {
+// layoutLocal lays out the patches over the readings for kernel k. The
+// polyharmonic kernels (thin-plate, cubic), which have no shape and no
+// scale, reach past crowded readings (extender); the others keep the
+// plain patches, whose shape was chosen for the readings' own spacing
+// (on Franke's function the thinning halved the thin-plate error at some
+// sizes but doubled the Gaussian's).
+func layoutLocal(ds *dataset, k Kernel) (*localFit, lattice, error) {
 	lat := newLattice(ds)
 	ix := newPointIndex(ds.x, ds.y, 4)
 	lf := &localFit{cx: ds.cx, cy: ds.cy, s: ds.s}
-	lat.assign(ds, ix, lf)
+	delta := 0.0
+	if k == ThinPlate || k == Cubic {
+		delta = thinFraction * ds.h
+	}
+	lat.assign(ds, ix, lf, delta)
 	if len(lf.patches) == 0 {
 		return nil, lat, fmt.Errorf("local fit: no patch has enough readings: %w", ErrTooFew)
 	}

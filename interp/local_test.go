@@ -101,3 +101,111 @@ func TestLocalLayout(t *testing.T) {
 		}
 	}
 }
+
+// TestLocalWeightDiskComplete checks the property the blend's
+// interpolation rests on, now that the extender thins the readings
+// beyond a patch's weight disk: every reading inside a patch's weight
+// disk belongs to that patch, the patch sizes stay within the limits, and
+// the fit passes through the (merged) readings.
+// Evenly scattered readings, lines much farther apart than their stations,
+// and a cluster fifty times denser than the rest (whose cells the layout
+// splits).
+func TestLocalWeightDiskComplete(t *testing.T) {
+	lines := func() (xs, ys, vs []float64) {
+		for l := 0; l <= 10; l++ {
+			for s := 0; s <= 200; s++ {
+				x, y := float64(s)*0.5, float64(l)*10
+				xs, ys, vs = append(xs, x), append(ys, y), append(vs, halfSpaceV(x, y))
+			}
+		}
+		return xs, ys, vs
+	}
+	cluster := func() (xs, ys, vs []float64) {
+		xs, ys, vs = scattered(5, 2000, 0, 0, 100, 100, halfSpaceV)
+		cx, cy, cv := scattered(6, 2000, 40, 40, 14, 14, halfSpaceV)
+		return append(xs, cx...), append(ys, cy...), append(vs, cv...)
+	}
+	tests := []struct {
+		name           string
+		xs, ys, vs     []float64
+		kernel         Kernel
+		wantExtensions bool
+	}{
+		{"scattered", nil, nil, nil, ThinPlate, true},
+		{"lines", nil, nil, nil, ThinPlate, true},
+		{"cluster", nil, nil, nil, ThinPlate, true},
+		{"lines, Wendland C2 (no thinning)", nil, nil, nil, WendlandC2, false},
+	}
+	tests[0].xs, tests[0].ys, tests[0].vs = scattered(4, 3000, 0, 0, 100, 100, halfSpaceV)
+	tests[1].xs, tests[1].ys, tests[1].vs = lines()
+	tests[2].xs, tests[2].ys, tests[2].vs = cluster()
+	tests[3].xs, tests[3].ys, tests[3].vs = lines()
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			m := mustFit(t, tc.xs, tc.ys, tc.vs, Options{Method: Local, Kernel: tc.kernel})
+			lf := m.surf.(*localFit)
+			ds := m.ds
+			extended := 0
+			for j, p := range lf.patches {
+				if n := p.hi - p.lo; n < localMin || n > localMax {
+					t.Errorf("patch %d has %d readings", j, n)
+				}
+				in := map[int32]bool{}
+				for _, k := range lf.member[p.lo:p.hi] {
+					in[k] = true
+				}
+				if p.frad > fitMargin*p.rad*(1+1e-6) {
+					extended++
+				}
+				for k := range ds.x {
+					du, dv := ds.x[k]-p.cx, ds.y[k]-p.cy
+					if du*du+dv*dv < p.rad*p.rad && !in[int32(k)] {
+						t.Fatalf("patch %d: reading %d lies in its weight disk but not in the patch", j, k)
+					}
+				}
+			}
+			if got := extended > 0; got != tc.wantExtensions {
+				t.Errorf("%d of %d patches reach past their base fit radius", extended, len(lf.patches))
+			}
+			for k := 0; k < len(ds.x); k += 41 { // merged readings, caller's coordinates
+				x, y := ds.x[k]*ds.s+ds.cx, ds.y[k]*ds.s+ds.cy
+				if got := m.Value(x, y); math.Abs(got-ds.v[k]) > 1e-8*max(1, math.Abs(ds.v[k])) {
+					t.Errorf("reading %d: V = %.12g, reading %.12g", k, got, ds.v[k])
+				}
+			}
+		})
+	}
+}
+
+// TestLocalLinesNearGlobal compares the local and global thin-plate fits
+// on a line survey (11 lines 10 m apart, stations every metre, the
+// two-source half-space of TestHalfSpace), the layout on which patches
+// filled from two lines used to interpolate nearly linearly between them:
+// 2,500 nodes between 10 m and 90 m, against the closed form (peak
+// potential about 20 V). Measured when the test was written: local RMS
+// 0.045 V (max 0.14 V), global RMS 0.025 V (max 0.15 V); the layout
+// before the extender gave a local RMS of 0.19 V (max 0.72 V). The bounds
+// are ours, 1.5 × the measured RMS errors and 2.5 × the global error for
+// the local one.
+func TestLocalLinesNearGlobal(t *testing.T) {
+	var xs, ys, vs []float64
+	for l := 0; l <= 10; l++ {
+		for s := 0; s <= 100; s++ {
+			x, y := float64(s), float64(l)*10
+			xs, ys, vs = append(xs, x), append(ys, y), append(vs, halfSpaceV(x, y))
+		}
+	}
+	var rms [2]float64
+	for i, meth := range []Method{Local, Global} {
+		m := mustFit(t, xs, ys, vs, Options{Method: meth})
+		r, mx := errorStats(50, 10, 10, 80, 80, m.Value, halfSpaceV)
+		t.Logf("%s: RMS %.3g V, max %.3g V", methodName(meth), r, mx)
+		rms[i] = r
+	}
+	if rms[0] > 0.068 || rms[1] > 0.038 {
+		t.Errorf("RMS errors: local %.3g V (bound 0.068), global %.3g V (bound 0.038)", rms[0], rms[1])
+	}
+	if rms[0] > 2.5*rms[1] {
+		t.Errorf("local RMS %.3g V is more than 2.5 × the global %.3g V", rms[0], rms[1])
+	}
+}

@@ -35,9 +35,8 @@ type smallSystem struct {
 	p1   [3][3]float64 // inverse of P₁ = [1 x y] at the pivots
 	flat bool          // the pivots (hence all readings) are nearly collinear
 	g    []float64     // scratch vector
-	// diag and work are the caller's buffers for inverseDiag.
-	diag, work []float64
-	invd       []float64 // reciprocals of the Cholesky factor's diagonal
+	work []float64     // the caller's scratch for inverseDiagAt
+	invd []float64     // reciprocals of the Cholesky factor's diagonal
 }
 
 // build fills A+λI for points (x, y) in pivot order and keeps the
