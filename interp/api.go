@@ -65,7 +65,7 @@ type Options struct {
 // after near-coincident ones are merged. The global fit costs O(N³) to
 // solve and N kernel evaluations per grid node: at 2,000 readings about
 // 1-2 s to fit and 7 s to evaluate onto 500×500 on two cores
-// (interp/BENCHMARKS.md), where the local fit needs about 125 evaluations
+// (interp/BENCHMARKS.md), where the local fit needs about 110 evaluations
 // per node and stays within 0.5 % (RMS) of the data range of the global
 // surface (local_test.go). At 1,000 readings the global fit takes about
 // 0.2 s and keeps regrids in the terminal UI interactive.

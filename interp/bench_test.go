@@ -120,3 +120,29 @@ func BenchmarkValue(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkPatchSystem times one partition-of-unity patch: building its
+// thin-plate matrix, reducing and factorising it (factor) and solving
+// (solve), at the default and the largest patch sizes.
+func BenchmarkPatchSystem(b *testing.B) {
+	for _, n := range []int{localTarget, localMax} {
+		xs, ys, vs := benchSurvey(n)
+		ds, err := prepare(xs, ys, vs)
+		if err != nil {
+			b.Fatal(err)
+		}
+		bs := newBasis(ThinPlate, 0)
+		var sys smallSystem
+		sol := make([]float64, len(ds.x)+3)
+		b.Run(fmt.Sprintf("n=%d", len(ds.x)), func(b *testing.B) {
+			for b.Loop() {
+				sys.build(ds.x, ds.y, ds.v, bs, 0)
+				if c := sys.factor(); !(c < maxCondition) {
+					b.Fatalf("condition %g", c)
+				}
+				copy(sol, ds.v)
+				sys.solve(sol)
+			}
+		})
+	}
+}

@@ -28,12 +28,16 @@
 //
 // Method Global solves one dense system over all readings: O(N³) time and
 // O(N²) memory to fit, O(N) per evaluation. Method Local is a partition of
-// unity: overlapping circular patches centred on a regular lattice, one
-// small fit per patch to the about 40 readings within 1.5 times the radius
-// at which the patch's weight vanishes, blended with Shepard-normalised
-// Wendland C² weights; it is at least C¹ (C¹ for the thin-plate spline,
-// smoother for smoother kernels), linear in memory, and costs about 125
-// kernel evaluations per point whatever N is. Method Auto uses the
+// unity: overlapping circular patches centred on a regular lattice (cells
+// crowded with readings split into four), one small fit per patch,
+// blended with Shepard-normalised Wendland C² weights. A patch fits about
+// 52 readings: every reading of its weight disk, and readings out to
+// twice its weight radius or further (for the polyharmonic kernels at
+// most one per square of the mean spacing, so that a patch on closely
+// spaced lines reaches the lines beyond). The blend is at least C¹ (C¹
+// for the thin-plate spline, smoother for smoother kernels), linear in
+// memory, and costs about 110 kernel evaluations per point whatever N
+// is. Method Auto uses the
 // global fit up to Options.LocalAbove (default DefaultLocalAbove) readings
 // and the local one above. Where both run, the local surface stays within
 // 0.5 % (RMS) of the data range of the global one on smooth data (see
