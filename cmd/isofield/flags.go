@@ -228,22 +228,23 @@ func (f *surveyFlags) run(ctx context.Context, fs *flag.FlagSet) (*pipeline.Resu
 	if _, _, err := applySession(fs, &f.cfg); err != nil {
 		return nil, err
 	}
-	return pipeline.Run(ctx, f.cfg, stageTrace(os.Getenv("ISOFIELD_TRACE") != ""))
+	var trace pipeline.Progress
+	if os.Getenv("ISOFIELD_TRACE") != "" {
+		trace = stageTrace(os.Stderr)
+	}
+	return pipeline.Run(ctx, f.cfg, trace)
 }
 
-// stageTrace returns, when on, a progress function that prints the time
-// at which each pipeline stage starts to stderr (for contributors:
-// ISOFIELD_TRACE=1 isofield grid ...; see DEVELOPERS.md), else nil.
-func stageTrace(on bool) pipeline.Progress {
-	if !on {
-		return nil
-	}
+// stageTrace returns a progress function that prints to w the time at
+// which each pipeline stage starts (for contributors: ISOFIELD_TRACE=1
+// isofield grid ...; see DEVELOPERS.md).
+func stageTrace(w io.Writer) pipeline.Progress {
 	t0 := time.Now()
 	last := ""
 	return func(stage string, _ float64) {
 		if stage != last {
 			last = stage
-			fmt.Fprintf(os.Stderr, "isofield: %7.3f s  %s\n", time.Since(t0).Seconds(), stage)
+			fmt.Fprintf(w, "isofield: %7.3f s  %s\n", time.Since(t0).Seconds(), stage)
 		}
 	}
 }

@@ -190,3 +190,41 @@ func TestPanicIsOneLine(t *testing.T) {
 		t.Errorf("stderr = %q, want one line naming the internal error, without a trace", got)
 	}
 }
+
+// TestStageTrace: one line per stage, when the stage starts, in order.
+func TestStageTrace(t *testing.T) {
+	var buf bytes.Buffer
+	p := stageTrace(&buf)
+	for _, st := range []string{"load", "check", "check", "fit", "grid", "grid", "analyse"} {
+		p(st, 0.5)
+	}
+	var got []string
+	for _, line := range strings.Split(strings.TrimSpace(buf.String()), "\n") {
+		f := strings.Fields(line)
+		if len(f) != 4 || f[0] != "isofield:" || f[2] != "s" {
+			t.Fatalf("line %q", line)
+		}
+		got = append(got, f[3])
+	}
+	if want := "load check fit grid analyse"; strings.Join(got, " ") != want {
+		t.Errorf("stages %q, want %q", got, want)
+	}
+}
+
+// TestStartProfile: a profile is written to the named file when the run
+// stops; a path that cannot be created profiles nothing and does not fail.
+func TestStartProfile(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "cpu.prof")
+	stop := startProfile(path)
+	x := 0.0
+	for i := 0; i < 1e6; i++ {
+		x += float64(i)
+	}
+	stop()
+	if fi, err := os.Stat(path); err != nil || fi.Size() == 0 {
+		t.Fatalf("profile %s: %v (%v)", path, fi, err)
+	}
+	startProfile(filepath.Join(t.TempDir(), "no", "such", "dir", "cpu.prof"))()
+	startProfile("")()
+	_ = x
+}
