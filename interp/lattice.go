@@ -95,9 +95,12 @@ func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit, delta float64
 			// times denser than the survey's mean).
 			var place func(cx, cy, hx, hy, rad float64, depth int)
 			place = func(cx, cy, hx, hy, rad float64, depth int) {
-				if !ix.anyWithin(cx, cy, rad) {
+				if depth == 0 && !ix.anyWithin(cx, cy, rad) {
 					return // an empty base disk: no patch (holes, corners)
 				}
+				// An empty sub-cell of a split cell still gets a patch,
+				// grown (growPatch) until it reaches readings, so that its
+				// ground stays covered by weight disks.
 				base := fitMargin * rad
 				if delta > 0 {
 					// One search serves the base patch and the extender's
