@@ -47,18 +47,18 @@ func (c *canvas) line(col, prev, r int) {
 }
 
 // render writes the canvas with value labels at the top and bottom rows
-// and midValue at row mid (the zero line, or the middle).
-func (c *canvas) render(lo, hi float64, mid int, midValue float64) string {
+// and midValue at row mid (the zero line, or the middle), all shown in u.
+func (c *canvas) render(lo, hi float64, mid int, midValue float64, u dispUnit) string {
 	var sb strings.Builder
 	for r, row := range c.cells {
 		label := ""
 		switch r {
 		case 0:
-			label = num(hi)
+			label = u.num(hi)
 		case c.h - 1:
-			label = num(lo)
+			label = u.num(lo)
 		case mid:
-			label = num(midValue)
+			label = u.num(midValue)
 		}
 		fmt.Fprintf(&sb, "%*s │%s", profileLeft-1, label, string(row))
 		if r < c.h-1 {

@@ -28,6 +28,14 @@
 // cautions. Values under the cursor come from the fitted model (exact
 // between nodes), or from the nearest node when there is none.
 //
+// Units. The screen shows potentials, fields and step voltages each in
+// one unit chosen from the scene's range by displayUnit: millivolts grow
+// to volts and kilovolts (per metre for fields) while the largest value
+// would reach 10 000, as a survey scaled to a fault current does; the
+// values as read get a unit of their own range. Only the text changes:
+// stored values, files, the session, the command line and the settings'
+// inputs keep the survey's unit.
+//
 // Background work. Every run of the pipeline (first load, a settings
 // change, a hand edit, a grown file in watch mode) is a tea.Cmd built from
 // a copy of the configuration, never the model. It carries a generation

@@ -57,7 +57,7 @@ func (m Model) promptText(i int) string {
 	if name == "" {
 		name = fmt.Sprintf("line %d", r.Line0)
 	}
-	return fmt.Sprintf("%s %s (%s %s): ", verb, name, num(r.V), m.scene.unit)
+	return fmt.Sprintf("%s %s (%s): ", verb, name, m.scene.stats.origUnit.with(r.V))
 }
 
 // onPromptKey types the reason; Enter records the edit, saves the session

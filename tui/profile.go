@@ -108,7 +108,6 @@ func (p profileView) View() string {
 	case p.prof == nil || p.v == nil:
 		return st.Faint.Render("no profile: the survey has no surface yet")
 	}
-	unit := p.sc.unit
 	pr := p.prof
 	title := st.PanelTitle.Render("Profile") + st.Label.Render(fmt.Sprintf("  A %s, %s → B %s, %s · length %s m",
 		fixed(pr.X0), fixed(pr.Y0), fixed(pr.X1), fixed(pr.Y1), num(pr.Length)))
@@ -121,17 +120,18 @@ func (p profileView) View() string {
 		vRows = rows - eRows
 	}
 	out := []string{truncate(title, p.width), key}
-	out = append(out, p.chart(p.v, vRows, true, "potential, "+unit)...)
+	out = append(out, p.chart(p.v, vRows, true, "potential", p.sc.vUnit)...)
 	if eRows > 0 {
-		out = append(out, p.chart(p.e, eRows-1, false, "field along A→B, "+unit+"/m")...)
+		out = append(out, p.chart(p.e, eRows-1, false, "field along A→B", p.sc.eUnit)...)
 	}
 	out = append(out, p.tickRow(), p.axis())
 	return strings.Join(out, "\n")
 }
 
 // chart draws series ys (one value per column) in h rows under a label
-// line, with the gridded readings when withReadings.
-func (p profileView) chart(ys []float64, h int, withReadings bool, label string) []string {
+// line naming the quantity and its display unit u, with the gridded
+// readings when withReadings.
+func (p profileView) chart(ys []float64, h int, withReadings bool, label string, u dispUnit) []string {
 	lo, hi := finiteRange(ys)
 	if withReadings {
 		for _, r := range p.prof.Readings {
@@ -140,7 +140,7 @@ func (p profileView) chart(ys []float64, h int, withReadings bool, label string)
 			}
 		}
 	}
-	head := p.styles.Label.Render(strings.Repeat(" ", profileLeft+1) + label)
+	head := p.styles.Label.Render(strings.Repeat(" ", profileLeft+1) + label + ", " + u.name)
 	if math.IsNaN(lo) {
 		return []string{head, p.styles.Faint.Render("the segment lies outside the surveyed area")}
 	}
@@ -172,7 +172,7 @@ func (p profileView) chart(ys []float64, h int, withReadings bool, label string)
 			}
 		}
 	}
-	return append([]string{head}, strings.Split(c.render(lo, hi, mid, midValue), "\n")...)
+	return append([]string{head}, strings.Split(c.render(lo, hi, mid, midValue, u), "\n")...)
 }
 
 // column returns the chart column of a distance along the line.

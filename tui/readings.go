@@ -96,7 +96,7 @@ func (r readingsTable) shown() []int {
 // takes the rest; on a narrow terminal the source, then the id, then the
 // reason give way, never the numbers.
 func (r readingsTable) columns() []table.Column {
-	titles := readingColumns()
+	titles := r.stats.titles()
 	shown := r.shown()
 	ws := make([]int, len(shown))
 	used := 0
@@ -144,12 +144,18 @@ func alignCell(s string, c, w int) string {
 }
 
 // readingStats are what the table needs to know of all the readings of a
-// result: file names, the width of each column's widest value, and the
-// counts. newScene finds them once per result, off the UI loop.
+// result: file names, the width of each column's widest value, the
+// counts, and the ranges and display units of the two value columns.
+// newScene finds them once per result, off the UI loop.
 type readingStats struct {
 	names    []string // base name of each input file
 	natural  [colReason + 1]int
 	sus, exc int // readings suspect and excluded
+
+	unit               string   // the survey's unit
+	origLo, origHi     float64  // range of the values as read
+	corrLo, corrHi     float64  // range of the corrected values
+	origUnit, corrUnit dispUnit // how the two columns show them
 }
 
 // measureReadings scans the readings of res once.
@@ -171,13 +177,15 @@ func measureReadings(res *pipeline.Result) readingStats {
 	if res.QA != nil {
 		corr, status = res.QA.Corrected, res.QA.Status
 	}
-	lo, hi, line := math.Inf(1), math.Inf(-1), 0
+	st.origLo, st.origHi, st.corrLo, st.corrHi = math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
+	line := 0
 	for i := range rs {
 		r := &rs[i]
 		n[colID] = max(n[colID], len(r.ID))
 		line = max(line, r.Line0)
 		c := at(corr, i, r.V)
-		lo, hi = min(lo, r.V, c), max(hi, r.V, c)
+		st.origLo, st.origHi = min(st.origLo, r.V), max(st.origHi, r.V)
+		st.corrLo, st.corrHi = min(st.corrLo, c), max(st.corrHi, c)
 		switch at(status, i, qa.OK) {
 		case qa.Suspect:
 			st.sus++
@@ -187,10 +195,33 @@ func measureReadings(res *pipeline.Result) readingStats {
 	}
 	n[colID] = min(n[colID], 16)
 	n[colLine] = len(strconv.Itoa(line))
-	n[colOriginal] = max(len(num(lo)), len(num(hi)), 5)
-	n[colCorrected] = n[colOriginal]
 	n[colStatus] = len("excluded")
+	st.unit = res.Survey.Unit.String()
+	return st.withUnits(displayUnit(st.unit, st.origLo, st.origHi), displayUnit(st.unit, st.corrLo, st.corrHi))
+}
+
+// withUnits shows the values as read in orig and the corrected values in
+// corr, and sizes the two columns for them (both alike, so that their
+// digits line up).
+func (st readingStats) withUnits(orig, corr dispUnit) readingStats {
+	st.origUnit, st.corrUnit = orig, corr
+	w := 5
+	if st.origLo <= st.origHi { // some readings
+		w = max(len(orig.num(st.origLo)), len(orig.num(st.origHi)), len(corr.num(st.corrLo)), len(corr.num(st.corrHi)), w)
+	}
+	st.natural[colOriginal], st.natural[colCorrected] = w, w
 	return st
+}
+
+// titles returns the column titles; the value columns name their units
+// when either is not the survey's own.
+func (st readingStats) titles() []string {
+	t := readingColumns()
+	if st.origUnit.name != st.unit || st.corrUnit.name != st.unit {
+		t[colOriginal] += " " + st.origUnit.name
+		t[colCorrected] += " " + st.corrUnit.name
+	}
+	return t
 }
 
 // SetResult fills the table from res, whose readings st describes
@@ -282,9 +313,9 @@ func (r readingsTable) cell(i, c int) string {
 	case 5:
 		return fixed(rd.Y)
 	case 6:
-		return num(rd.V)
+		return r.stats.origUnit.num(rd.V)
 	case 7:
-		return num(r.corrected(i))
+		return r.stats.corrUnit.num(r.corrected(i))
 	case 8:
 		return r.status(i).String()
 	}

@@ -122,15 +122,16 @@ func (sc *scene) bandLabel(k int) string {
 	if k < 0 || k+1 >= len(e) {
 		return "—"
 	}
-	return fmt.Sprintf("%s … %s %s", num(e[k]), num(e[k+1]), sc.unit)
+	return fmt.Sprintf("%s … %s %s", sc.vUnit.num(e[k]), sc.vUnit.num(e[k+1]), sc.vUnit.name)
 }
 
-// criterionText describes the preset's criterion in one or two lines.
-func criterionText(cfg pipeline.Config, unit string) string {
+// criterionText describes the preset's criterion in one or two lines;
+// field is the display unit of fields.
+func criterionText(cfg pipeline.Config, field dispUnit) string {
 	c := cfg.Criteria
 	th := "no field threshold"
 	if c.FieldThreshold > 0 {
-		th = fmt.Sprintf("flag |E| ≥ %s %s/m", num(c.FieldThreshold), unit)
+		th = "flag |E| ≥ " + field.with(c.FieldThreshold)
 	}
 	switch c.Name() {
 	case criteria.Concrete:
@@ -148,24 +149,26 @@ func criterionText(cfg pipeline.Config, unit string) string {
 func hypot(a, b float64) float64 { return math.Hypot(a, b) }
 
 // criterionOf describes an analysis criterion: its title, the field
-// threshold in effect and, for grounding, the tolerable voltages.
-func criterionOf(c *criteria.Criterion, field float64, unit string) string {
+// threshold in effect (shown in fu, the display unit of fields) and, for
+// grounding, the tolerable voltages stored in unit (each shown in the
+// unit that suits it).
+func criterionOf(c *criteria.Criterion, field float64, unit string, fu dispUnit) string {
 	if c == nil {
 		return ""
 	}
 	parts := []string{c.Title}
 	if field > 0 {
-		t := fmt.Sprintf("flag |E| ≥ %s %s/m", num(field), unit)
+		t := "flag |E| ≥ " + fu.with(field)
 		if c.FieldLabel != "" {
 			t += " (" + c.FieldLabel + ")"
 		}
 		parts = append(parts, t)
 	}
 	if c.Step {
-		parts = append(parts, fmt.Sprintf("tolerable step %s %s", num(c.StepLimit), unit))
+		parts = append(parts, "tolerable step "+withUnit(c.StepLimit, unit))
 	}
 	if c.Touch {
-		parts = append(parts, fmt.Sprintf("touch %s %s", num(c.TouchLimit), unit))
+		parts = append(parts, "touch "+withUnit(c.TouchLimit, unit))
 	}
 	parts = append(parts, c.Warnings...)
 	return strings.Join(nonEmpty(parts), "; ")

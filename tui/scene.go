@@ -27,6 +27,11 @@ type scene struct {
 	near      *analysis.NearIndex
 	stats     readingStats // for the status line and the readings table
 	stepLimit float64      // tolerable step voltage in unit (0: none)
+
+	// How the screen shows potentials (legend, readout, profile, the
+	// table's corrected values), fields and step voltages: one unit
+	// each, chosen from the scene's range (displayUnit).
+	vUnit, eUnit, stepUnit dispUnit
 }
 
 // zoneInfo is one flagged zone, ranked by severity (rank 1 first).
@@ -39,6 +44,15 @@ type zoneInfo struct {
 	PeakX, PeakY float64
 	Peak         float64
 	Nodes        int
+	disp         dispUnit // how Peak is shown
+}
+
+// shownPeak is the zone's peak with its unit, as the screen shows it.
+func (z zoneInfo) shownPeak() string {
+	if z.disp.name == "" { // not chosen (zones made by hand)
+		return num(z.Peak) + " " + z.Unit
+	}
+	return z.disp.with(z.Peak)
 }
 
 // newScene derives a scene from res. cfg is the configuration that made
@@ -61,7 +75,6 @@ func newScene(res *pipeline.Result, cfg pipeline.Config) *scene {
 		for _, s := range a.Suggestions {
 			pts = append(pts, mapview.Point{X: s.X, Y: s.Y, Kind: mapview.KindSuggestion})
 		}
-		sc.criterion = criterionOf(a.Criterion, sc.threshold, sc.unit)
 		if a.Criterion != nil {
 			sc.cautions = a.Criterion.Cautions
 			if a.Criterion.Step {
@@ -74,20 +87,60 @@ func newScene(res *pipeline.Result, cfg pipeline.Config) *scene {
 		pot = mapview.NiceBands(lo, hi, cfg.Interval)
 		flagged = fieldFlags(g, sc.threshold)
 		sc.zones, sc.zoneOf = findZones(g, flagged)
-		sc.criterion = criterionText(cfg, sc.unit)
 	}
 	if len(sc.cautions) == 0 {
 		sc.cautions = criteria.Cautions(cfg.Criteria.Name())
 	}
+	sc.data = mapview.NewData(g, pot, field, flagged, pts)
+	sc.near = readingIndex(res.Survey.Readings)
+	sc.stats = measureReadings(res)
+	sc.chooseUnits(pot, field)
+	if a := res.Analysis; a != nil {
+		sc.criterion = criterionOf(a.Criterion, sc.threshold, sc.unit, sc.eUnit)
+	} else {
+		sc.criterion = criterionText(cfg, sc.eUnit)
+	}
+	return sc
+}
+
+// chooseUnits picks the display units: potentials from the bands and the
+// corrected readings (so that the readout, the legend and the table
+// agree), fields from their bands and the threshold, step voltages from
+// the tolerable one, and each zone's peak from the peaks of its kind.
+func (sc *scene) chooseUnits(pot, field mapview.Bands) {
+	lo, hi := sc.stats.corrLo, sc.stats.corrHi
+	if n := len(pot.Edges); n > 0 {
+		lo, hi = min(lo, pot.Edges[0]), max(hi, pot.Edges[n-1])
+	}
+	sc.vUnit = displayUnit(sc.unit, lo, hi)
+	fmax := sc.threshold
+	if n := len(field.Edges); n > 0 {
+		fmax = max(fmax, field.Edges[n-1])
+	}
+	sc.eUnit = displayUnit(sc.unit+"/m", 0, fmax)
+	sc.stepUnit = sc.vUnit
+	if sc.stepLimit > 0 {
+		sc.stepUnit = displayUnit(sc.unit, sc.stepLimit, sc.stepLimit)
+	}
+	sc.stats = sc.stats.withUnits(sc.stats.origUnit, sc.vUnit)
+	peak := map[string]float64{}
 	for i := range sc.zones {
 		if sc.zones[i].Unit == "" {
 			sc.zones[i].Unit = sc.unit + "/m"
 		}
+		u := sc.zones[i].Unit
+		peak[u] = max(peak[u], math.Abs(sc.zones[i].Peak))
 	}
-	sc.data = mapview.NewData(g, pot, field, flagged, pts)
-	sc.near = readingIndex(res.Survey.Readings)
-	sc.stats = measureReadings(res)
-	return sc
+	for i := range sc.zones {
+		switch u := sc.zones[i].Unit; u {
+		case sc.unit:
+			sc.zones[i].disp = displayUnit(u, 0, max(peak[u], hi, -lo))
+		case sc.unit + "/m":
+			sc.zones[i].disp = displayUnit(u, 0, max(peak[u], fmax))
+		default:
+			sc.zones[i].disp = displayUnit(u, 0, peak[u])
+		}
+	}
 }
 
 // zonesFrom converts the analysis' ranked zones.

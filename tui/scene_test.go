@@ -99,28 +99,31 @@ func allHelp(t testing.TB, m Model) string {
 
 // TestReadingLabelCorrected checks that the nearest-reading readout shows
 // the value that was gridded (after drift, reference and current scaling)
-// and the value as read when the two differ.
+// and the value as read when the two differ; a scaled value that reaches
+// 10 000 mV goes in volts (1 V = 1000 mV), the value as read then names
+// its unit.
 func TestReadingLabelCorrected(t *testing.T) {
-	res := fixtureResult()
-	sc := newScene(res, pipeline.Config{})
+	v0 := fixtureResult().Survey.Readings[0].V
 	tests := []struct {
 		name      string
 		corrected float64
 		want      string
-		wantRead  bool
+		wantRead  string // "" when the value as read is not shown
 	}{
-		{"unchanged", res.Survey.Readings[0].V, fmt.Sprintf(" %s %s", num(res.Survey.Readings[0].V), res.Survey.Unit), false},
-		{"scaled", 4000 * res.Survey.Readings[0].V, fmt.Sprintf(" %s %s", num(4000*res.Survey.Readings[0].V), res.Survey.Unit), true},
+		{"unchanged", v0, fmt.Sprintf(" %s mV,", num(v0)), ""},
+		{"scaled a little", 2 * v0, fmt.Sprintf(" %s mV,", num(2*v0)), "(read " + num(v0) + ")"},
+		{"scaled to a fault", 4000 * v0, fmt.Sprintf(" %s V,", num(4*v0)), "(read " + num(v0) + " mV)"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
+			res := fixtureResult()
 			res.QA.Corrected[0] = tt.corrected
-			got := sc.readingLabel(0, 1.5)
+			got := newScene(res, pipeline.Config{}).readingLabel(0, 1.5)
 			if !strings.Contains(got, tt.want) {
 				t.Errorf("readingLabel = %q, want it to contain %q", got, tt.want)
 			}
-			if has := strings.Contains(got, "(read "+num(res.Survey.Readings[0].V)+")"); has != tt.wantRead {
-				t.Errorf("readingLabel = %q: shows the value as read = %v, want %v", got, has, tt.wantRead)
+			if has := strings.Contains(got, "(read"); has != (tt.wantRead != "") || !strings.Contains(got, tt.wantRead) {
+				t.Errorf("readingLabel = %q, want the value as read %q", got, tt.wantRead)
 			}
 		})
 	}

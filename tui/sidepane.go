@@ -75,23 +75,22 @@ func truncate(s string, w int) string {
 // readout lists the values at the cursor.
 func (p sidePane) readout(sc *scene, pr probe, w int) []string {
 	st := p.styles
-	u := sc.unit
 	out := append([]string{st.PanelTitle.Render("At cursor")}, p.row("x,y", fixed(pr.X)+", "+fixed(pr.Y)+" m", w)...)
 	if !pr.Inside {
 		out = append(out, p.row("V", "outside the surveyed area", w)...)
 	} else {
-		out = append(out, p.row("V", num(pr.V)+" "+u, w)...)
+		out = append(out, p.row("V", sc.vUnit.with(pr.V), w)...)
 		e := hypot(pr.EX, pr.EY)
 		b, name := bearing(pr.EX, pr.EY)
-		out = append(out, p.row("|E|", fmt.Sprintf("%s %s/m → %03.0f° %s", num(e), u, b, name), w)...)
+		out = append(out, p.row("|E|", fmt.Sprintf("%s → %03.0f° %s", sc.eUnit.with(e), b, name), w)...)
 		if pr.HasStep {
-			step := num(pr.StepValue) + " " + u + " over 1 m"
+			step := sc.stepUnit.with(pr.StepValue) + " over 1 m"
 			if sc.stepLimit > 0 {
 				share := fmt.Sprintf("%.0f%%", 100*pr.StepValue/sc.stepLimit)
 				if pr.StepValue < 0.01*sc.stepLimit {
 					share = "under 1%"
 				}
-				step += fmt.Sprintf(" (%s of the tolerable %s)", share, withUnit(sc.stepLimit, u))
+				step += fmt.Sprintf(" (%s of the tolerable %s)", share, sc.stepUnit.with(sc.stepLimit))
 			}
 			out = append(out, p.row("step", step, w)...)
 		}
@@ -120,9 +119,13 @@ func (sc *scene) readingLabel(i int, dist float64) string {
 	}
 	// The corrected value is the one gridded (drift, reference and current
 	// scaling applied); the value as read follows when they differ.
-	out := fmt.Sprintf("%s %s %s, %.1f m", id, num(v), sc.unit, dist)
+	out := fmt.Sprintf("%s %s, %.1f m", id, sc.vUnit.with(v), dist)
 	if v != r.V {
-		out += fmt.Sprintf(" (read %s)", num(r.V))
+		read := sc.vUnit.num(r.V) // the same unit goes without saying
+		if ou := sc.stats.origUnit; ou != sc.vUnit {
+			read = ou.with(r.V)
+		}
+		out += " (read " + read + ")"
 	}
 	if status != qa.OK {
 		out += " " + status.String()
@@ -141,9 +144,9 @@ func (p sidePane) legend(sc *scene, mp mapPane, w, room int) (lines []string, wh
 	if !ok || room < 2 {
 		return nil, false
 	}
-	unit, what := sc.unit, "potential"
+	unit, what := sc.vUnit, "potential"
 	if mp.view.Layers&mapview.LayerField != 0 {
-		unit, what = sc.unit+"/m", "field |E|"
+		unit, what = sc.eUnit, "field |E|"
 	}
 	n := b.N()
 	crit := wrap(sc.criterion, w)
@@ -153,11 +156,11 @@ func (p sidePane) legend(sc *scene, mp mapPane, w, room int) (lines []string, wh
 	entries := make([]string, 0, n)
 	widest := 0
 	for k := n - 1; k >= 0; k-- {
-		e := p.swatch(sc, mp, k) + " " + num(b.Edges[k]) + " … " + num(b.Edges[k+1])
+		e := p.swatch(sc, mp, k) + " " + unit.num(b.Edges[k]) + " … " + unit.num(b.Edges[k+1])
 		entries = append(entries, e)
 		widest = max(widest, lipgloss.Width(e))
 	}
-	title := st.PanelTitle.Render("Legend ") + st.Label.Render(what+", "+unit)
+	title := st.PanelTitle.Render("Legend ") + st.Label.Render(what+", "+unit.name)
 	var body []string
 	whole = true
 	switch {
@@ -206,13 +209,4 @@ func wrap(s string, w int) []string {
 		return nil
 	}
 	return strings.Split(lipgloss.NewStyle().Width(w).Render(s), "\n")
-}
-
-// withUnit formats v in unit, in volts when a millivolt value reaches
-// 10 000.
-func withUnit(v float64, unit string) string {
-	if unit == "mV" && (v >= 1e4 || v <= -1e4) {
-		return num(v/1000) + " V"
-	}
-	return num(v) + " " + unit
 }

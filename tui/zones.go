@@ -105,7 +105,7 @@ func (z zoneList) View() string {
 			mark = "▶ "
 		}
 		ls := []string{
-			fmt.Sprintf("%s#%d peak %s %s", mark, s.Rank, num(s.Peak), s.Unit),
+			fmt.Sprintf("%s#%d peak %s", mark, s.Rank, s.shownPeak()),
 			strings.TrimRight(fmt.Sprintf("   %s m²  %s", num(s.Area), s.Label), " "),
 			fmt.Sprintf("   at %s, %s", fixed(s.PeakX), fixed(s.PeakY)),
 		}
