@@ -68,7 +68,9 @@
 // the patches nearest the edge and, beyond every patch, the nearest
 // patch's fit alone (continuous up to the edge of the last patch, not
 // beyond). Neither is to be trusted far from the readings: callers mask
-// nodes that are too far from any reading (MaskFar, DefaultMaskDistance).
+// nodes that are too far from any reading (MaskFar, DefaultMaskDistance)
+// and those outside the readings' convex hull grown by a margin
+// (MaskOutsideHull).
 //
 // # Errors, panics and concurrency
 //

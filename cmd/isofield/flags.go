@@ -48,6 +48,7 @@ func (f *surveyFlags) register(fs *flag.FlagSet) {
 	fs.BoolVar(&c.Load.LinesAlongY, "lines-along-y", false, "survey lines run along y (stations count northwards)")
 	fs.Float64Var(&c.Spacing, "spacing", 0, "grid spacing in `METRES` (default: about 150 nodes along the longer side)")
 	fs.Float64Var(&c.MaskDistance, "mask", 0, "blank nodes farther than `METRES` from any reading (default: from the readings' spacing; negative: none)")
+	fs.TextVar(&c.Outline, "outline", pipeline.OutlineHull, "blank nodes outside the readings' outline too: `hull|none`; hull keeps their convex hull grown by a grid cell's diagonal")
 	fs.Float64Var(&c.Interval, "interval", 0, "contour `INTERVAL` in the potential unit (default: a round interval giving 8 to 15 bands)")
 	fs.BoolVar(&c.UseSuspects, "use-suspects", false, "grid suspect readings too (excluded readings never)")
 	fs.StringVar(&f.kernel, "kernel", "thin-plate", "radial basis `KERNEL`: thin-plate, cubic, multiquadric, inverse-multiquadric, gaussian, wendland-c2, wendland-c4")
@@ -202,6 +203,7 @@ func (f *surveyFlags) restoreSettings(fs *flag.FlagSet, args []string) error {
 	f.cfg.Criteria = again.cfg.Criteria
 	f.cfg.Criteria.Conditions = slices.Compact(slices.Sorted(slices.Values(f.cfg.Criteria.Conditions)))
 	f.cfg.Spacing, f.cfg.MaskDistance, f.cfg.Interval = again.cfg.Spacing, again.cfg.MaskDistance, again.cfg.Interval
+	f.cfg.Outline = again.cfg.Outline
 	f.cfg.MaxNodes, f.cfg.UseSuspects = again.cfg.MaxNodes, again.cfg.UseSuspects
 	f.kernel, f.method, f.smoothing, f.shape = again.kernel, again.method, again.smoothing, again.shape
 	return nil

@@ -71,6 +71,7 @@ func SettingsOf(cfg pipeline.Config, res *pipeline.Result) []Setting {
 		mask = fmtNum(res.MaskDistance) + " m (automatic)"
 	}
 	add("mask distance", mask)
+	add("outline", outlineText(cfg.Outline, res))
 	add("suspect readings gridded", yesNo(cfg.UseSuspects))
 	return ss
 }
@@ -97,6 +98,18 @@ func maskText(d float64) string {
 		return "automatic"
 	}
 	return fmtNum(d) + " m"
+}
+
+// outlineText describes the outline mask: "none", or the convex hull with
+// the margin the run used.
+func outlineText(o pipeline.Outline, res *pipeline.Result) string {
+	switch {
+	case o != pipeline.OutlineHull:
+		return o.String()
+	case res != nil && res.OutlineMargin > 0:
+		return fmt.Sprintf("convex hull + %.3g m", res.OutlineMargin)
+	}
+	return "convex hull"
 }
 
 func yesNo(b bool) string {

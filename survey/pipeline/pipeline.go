@@ -1,8 +1,8 @@
 // Package pipeline runs isofield's whole path from CSV files to an analysed
 // grid: load, check and clean, prepare values for the criteria preset, fit
 // the interpolant, evaluate it on a grid with its gradient, mask nodes far
-// from the readings, and analyse. The command line and the terminal UI both
-// call Run, so they always agree.
+// from the readings or outside their outline, and analyse. The command
+// line and the terminal UI both call Run, so they always agree.
 package pipeline
 
 import (
@@ -40,6 +40,9 @@ type Config struct {
 	// MaskDistance masks nodes farther than this from any reading (0:
 	// interp.DefaultMaskDistance; negative: no mask).
 	MaskDistance float64
+	// Outline masks, besides, the nodes outside the readings' outline
+	// (the zero value: OutlineHull).
+	Outline Outline
 	// Interval is the contour interval (0: automatic).
 	Interval float64
 	// Suggest is how many infill points to suggest.
@@ -75,7 +78,10 @@ type Result struct {
 	Analysis *analysis.Result
 	// MaskDistance is the masking distance used, in metres (0: none).
 	MaskDistance float64
-	Notes        []string
+	// OutlineMargin is how far beyond the readings' convex hull nodes were
+	// kept, in metres; negative when no outline mask was applied.
+	OutlineMargin float64
+	Notes         []string
 }
 
 // Run executes the pipeline. It honours ctx between and within stages.
@@ -140,6 +146,11 @@ func Run(ctx context.Context, cfg Config, progress Progress) (*Result, error) {
 	if md > 0 {
 		interp.MaskFar(g, xs, ys, md)
 		res.MaskDistance = md
+	}
+	res.OutlineMargin = -1
+	if cfg.Outline == OutlineHull {
+		res.OutlineMargin = OutlineMargin(g)
+		interp.MaskOutsideHull(g, xs, ys, res.OutlineMargin)
 	}
 	progress(StageGrid, 0)
 	if err := interp.Evaluate(ctx, m, g, func(d, t int) { progress(StageGrid, frac(d, t)) }); err != nil {

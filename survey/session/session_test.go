@@ -175,6 +175,7 @@ func TestParseErrors(t *testing.T) {
 		{"unknown reference", `{"version": 1, "settings": {"qa": {"from": "platinum"}}}`, electrode.ErrUnknown, ""},
 		{"bad drift", `{"version": 1, "settings": {"qa": {"drift": "quadratic"}}}`, nil, "quadratic"},
 		{"empty", ``, nil, "s.json"},
+		{"bad outline", `{"version": 1, "settings": {"grid": {"outline": "rim"}}}`, nil, "rim"},
 		{"not json", "\x00\x01binary", nil, "s.json:1:"},
 	}
 	for _, tt := range tests {
@@ -206,7 +207,8 @@ func TestOpenMissing(t *testing.T) {
 
 // TestSettingsConfig round-trips settings through a pipeline.Config.
 func TestSettingsConfig(t *testing.T) {
-	cfg := pipeline.Config{Files: []string{"a.csv"}, Spacing: 0.5, Interval: 10, UseSuspects: true}
+	cfg := pipeline.Config{Files: []string{"a.csv"}, Spacing: 0.5, Interval: 10, UseSuspects: true,
+		Outline: pipeline.OutlineNone}
 	cfg.Fit = interp.Options{Kernel: interp.WendlandC2, Method: interp.Local, Shape: 2, Smoothing: 0.1}
 	cfg.QA = qa.Settings{Base: "B", AutoBase: true}
 	s := FromConfig(cfg)
@@ -220,6 +222,39 @@ func TestSettingsConfig(t *testing.T) {
 	}
 	if err := (Settings{Fit: FitSettings{Method: "sideways"}}).Apply(&back); err == nil {
 		t.Errorf("Apply accepted method sideways")
+	}
+}
+
+// TestOutlineSetting reads the outline from files with and without it:
+// files written before the setting existed keep loading, with the default.
+func TestOutlineSetting(t *testing.T) {
+	tests := []struct {
+		name string
+		data string
+		want pipeline.Outline
+	}{
+		{"before the setting", `{"version": 1, "settings": {"grid": {"mask_m": 4}}}`, pipeline.OutlineHull},
+		{"hull", `{"version": 1, "settings": {"grid": {"outline": "hull"}}}`, pipeline.OutlineHull},
+		{"none", `{"version": 1, "settings": {"grid": {"outline": "none"}}}`, pipeline.OutlineNone},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			f, err := Parse([]byte(tt.data), "s.json")
+			if err != nil {
+				t.Fatal(err)
+			}
+			var cfg pipeline.Config
+			if err := f.Settings.Apply(&cfg); err != nil || cfg.Outline != tt.want {
+				t.Errorf("Outline = %v (%v), want %v", cfg.Outline, err, tt.want)
+			}
+		})
+	}
+	b, err := json.Marshal(GridSettings{Outline: pipeline.OutlineNone})
+	if err != nil || !strings.Contains(string(b), `"outline":"none"`) {
+		t.Errorf("GridSettings with no outline marshals as %s (%v), want \"outline\":\"none\"", b, err)
+	}
+	if b, _ := json.Marshal(GridSettings{}); strings.Contains(string(b), "outline") {
+		t.Errorf("default GridSettings marshals as %s, want the default left out", b)
 	}
 }
 

@@ -41,9 +41,12 @@ type GridSettings struct {
 	Spacing      float64 `json:"spacing_m,omitempty"`
 	MaxNodes     int     `json:"max_nodes,omitempty"`
 	MaskDistance float64 `json:"mask_m,omitempty"`
-	Interval     float64 `json:"interval,omitempty"`
-	Suggest      int     `json:"suggest,omitempty"`
-	UseSuspects  bool    `json:"use_suspects,omitempty"`
+	// Outline is "none" or, left out (files written before it existed
+	// too), the default "hull".
+	Outline     pipeline.Outline `json:"outline,omitempty"`
+	Interval    float64          `json:"interval,omitempty"`
+	Suggest     int              `json:"suggest,omitempty"`
+	UseSuspects bool             `json:"use_suspects,omitempty"`
 }
 
 // FromConfig takes the settings of a pipeline configuration.
@@ -58,7 +61,7 @@ func FromConfig(cfg pipeline.Config) Settings {
 			Shape: o.Shape, AutoShape: o.AutoShape, LocalAbove: o.LocalAbove,
 		},
 		Grid: GridSettings{
-			Spacing: cfg.Spacing, MaxNodes: cfg.MaxNodes, MaskDistance: cfg.MaskDistance,
+			Spacing: cfg.Spacing, MaxNodes: cfg.MaxNodes, MaskDistance: cfg.MaskDistance, Outline: cfg.Outline,
 			Interval: cfg.Interval, Suggest: cfg.Suggest, UseSuspects: cfg.UseSuspects,
 		},
 	}
@@ -87,7 +90,7 @@ func (s Settings) Apply(cfg *pipeline.Config) error {
 	cfg.Fit = fit
 	cfg.QA, cfg.Criteria = s.QA, s.Criteria
 	g := s.Grid
-	cfg.Spacing, cfg.MaxNodes, cfg.MaskDistance = g.Spacing, g.MaxNodes, g.MaskDistance
+	cfg.Spacing, cfg.MaxNodes, cfg.MaskDistance, cfg.Outline = g.Spacing, g.MaxNodes, g.MaskDistance, g.Outline
 	cfg.Interval, cfg.Suggest, cfg.UseSuspects = g.Interval, g.Suggest, g.UseSuspects
 	return nil
 }
