@@ -122,7 +122,7 @@ func (sc *scene) readingLabel(i int, dist float64) string {
 	out := fmt.Sprintf("%s %s, %.1f m", id, sc.vUnit.with(v), dist)
 	if v != r.V {
 		read := sc.vUnit.num(r.V) // the same unit goes without saying
-		if ou := sc.stats.origUnit; ou != sc.vUnit {
+		if ou := sc.stats.origUnit; ou.name != sc.vUnit.name || ou.scale != sc.vUnit.scale {
 			read = ou.with(r.V)
 		}
 		out += " (read " + read + ")"

@@ -12,7 +12,16 @@ import (
 type dispUnit struct {
 	name  string  // "mV", "V", "kV", "V/m" ...
 	scale float64 // stored units per shown unit (0 reads as 1)
+	// tiny is the magnitude (stored unit) below which a value prints as
+	// 0: rounding noise of the interpolant, such as 1e-12 V midway between
+	// two equal and opposite sources, is not a reading.
+	tiny float64
 }
+
+// noiseFraction is the fraction of a range's largest magnitude below
+// which a value of that range is shown as 0 (double precision carries
+// about 16 digits; the interpolant's sums lose a few).
+const noiseFraction = 1e-9
 
 // promoteAt is the magnitude from which a value is shown in the next
 // larger unit (mV → V → kV): below it num prints at most four digits
@@ -59,11 +68,14 @@ func displayUnit(unit string, lo, hi float64) dispUnit {
 		scale = voltPrefixes[i].mV / voltPrefixes[k].mV
 		base = voltPrefixes[i].name
 	}
-	return dispUnit{name: base + per, scale: scale}
+	return dispUnit{name: base + per, scale: scale, tiny: noiseFraction * m}
 }
 
 // num formats v (in the stored unit) as a number in d.
 func (d dispUnit) num(v float64) string {
+	if math.Abs(v) < d.tiny {
+		v = 0
+	}
 	if d.scale == 0 {
 		return num(v)
 	}

@@ -203,3 +203,29 @@ func TestFaultScaledPipeline(t *testing.T) {
 		t.Errorf("readout lacks the step voltage in volts:\n%s", r)
 	}
 }
+
+// TestDispUnitNoise: within a range, values below 1e-9 of its largest
+// magnitude are rounding noise and print as 0; a lone value never does.
+func TestDispUnitNoise(t *testing.T) {
+	tests := []struct {
+		unit   string
+		lo, hi float64
+		v      float64
+		want   string
+	}{
+		{"mV", -2e6, 2e6, 1.145e-9, "0 V"},
+		{"mV", -2e6, 2e6, -3e-5, "0 V"},
+		{"mV", -2e6, 2e6, 0.5, "0.0005 V"},
+		{"mV", -400, -200, -1e-8, "0 mV"},
+		{"mV", -400, -200, -1e-6, "-1e-06 mV"},
+		{"mV", 0, 0, 1e-12, "1e-12 mV"},
+	}
+	for _, tt := range tests {
+		if got := displayUnit(tt.unit, tt.lo, tt.hi).with(tt.v); got != tt.want {
+			t.Errorf("displayUnit(%q, %g, %g).with(%g) = %q, want %q", tt.unit, tt.lo, tt.hi, tt.v, got, tt.want)
+		}
+	}
+	if got := withUnit(1e-12, "V"); got != "1e-12 V" {
+		t.Errorf("withUnit(1e-12, V) = %q", got)
+	}
+}
