@@ -63,13 +63,14 @@ func TestLeaveOneOutLocal(t *testing.T) {
 	plan := localPlan{b: newBasis(ThinPlate, 0)}
 	var sys smallSystem
 	for _, k := range []int{0, 17, 123, 250, 499} {
+		g := m.ds.group[k] // the fit's own numbering (spatial order)
 		var num, den float64
 		for j := range lf.patches {
 			p := &lf.patches[j]
 			var px, py, pv []float64
 			held := -1
 			for i := p.lo; i < p.hi; i++ {
-				if int(lf.member[i]) == k {
+				if lf.member[i] == g {
 					held = int(i)
 					continue
 				}
