@@ -38,7 +38,7 @@ func addQAFlags(fs *flag.FlagSet, s *qa.Settings) {
 	fs.Float64Var(&s.RepeatTol, "repeat-tol", 0, fmt.Sprintf("largest spread `VALUE` of agreeing repeats, in the potential unit (default %g mV, ASTM C876 repeatability, from memory; negative: never suspect)", qa.DefaultRepeatTolMV))
 	fs.Float64Var(&s.RepeatDist, "repeat-dist", 0, fmt.Sprintf("readings within `METRES` are repeats of one spot (default %g; negative: same id only)", qa.DefaultRepeatDist))
 	fs.BoolVar(&s.IgnoreIDs, "repeat-by-position", false, "group repeats by position only (ids restart in each file)")
-	fs.Float64Var(&s.SpikeK, "spike-k", 0, fmt.Sprintf("mark readings whose leave-one-out robust z exceeds `K` (default %g; negative: no spike check)", qa.DefaultSpikeK))
+	fs.Float64Var(&s.SpikeK, "spike-k", 0, fmt.Sprintf("mark readings whose leave-one-out robust z, beyond the local curvature allowance, exceeds `K` (default %g; negative: no spike check)", qa.DefaultSpikeK))
 	fs.Float64Var(&s.TestCurrent, "test-current", 0, "injected test current in `AMPERES` for readings without a test current column")
 	fs.Float64Var(&s.FaultCurrent, "fault-current", 0, "scale readings to this current into the grid, in `AMPERES` (V × fault / test current)")
 	fs.Bool(flagNoSession, false, "ignore the session file (settings and hand edits kept beside the first input)")

@@ -164,6 +164,9 @@ func (p *printer) spikes() {
 		return
 	}
 	p.f("\nspikes: robust z beyond %.3g and residual beyond %s\n", set.SpikeK, p.tol(set.RepeatTol))
+	p.f("  each limit is raised by the reading's curvature allowance, about curvature × spacing² from\n")
+	p.f("  a least-squares quadratic through its 12 nearest readings without it, so that a real peak\n")
+	p.f("  sampled coarsely (as over an injection electrode) is not marked\n")
 	if fi := p.r.Fit; fi != nil {
 		method := "global"
 		if fi.Patches > 0 {
