@@ -183,6 +183,9 @@ func (m Model) update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		return m.onResult(msg)
 	case progressMsg:
 		return m.onProgress(msg)
+	case readingsSortedMsg:
+		m.table = m.table.onSorted(msg)
+		return m, nil
 	case watchTickMsg:
 		return m, statFiles(m.cfg.Files)
 	case statMsg:

@@ -1,11 +1,9 @@
 package tui
 
 import (
-	"cmp"
 	"fmt"
 	"math"
 	"path/filepath"
-	"slices"
 	"strconv"
 	"strings"
 
@@ -14,7 +12,6 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/lipgloss"
 
-	"isofield/survey"
 	"isofield/survey/pipeline"
 	"isofield/survey/qa"
 )
@@ -23,8 +20,8 @@ import (
 // by any column and the selected reading excluded or included.
 //
 // Speed. Surveys reach 10⁶ readings, so the table never formats them all:
-// ordering sorts an index slice with comparisons on the readings' values
-// (no text), and the Bubbles table is handed only the rows on screen,
+// ordering sorts an index slice by keys computed once per order
+// (readings_sort.go), and the Bubbles table is handed only the rows on screen,
 // rebuilt on each move (a few dozen rows of ten cells). The table keeps
 // its own selection and scroll position; the Bubbles table draws the
 // visible window with the selected row highlighted.
@@ -38,6 +35,9 @@ type readingsTable struct {
 	cursor, top   int     // selected row, first row on screen
 	sortCol       int
 	desc          bool
+	sortGen       int          // generation of the latest order asked for
+	pending       *sortRequest // the order being computed off the UI loop
+	asyncMin      int          // readings from which orders are computed off the UI loop
 	stats         readingStats
 	width, height int
 }
@@ -49,7 +49,7 @@ func readingColumns() []string {
 
 func newReadingsTable(keys KeyMap, st Styles) readingsTable {
 	t := table.New(table.WithStyles(st.Table), table.WithFocused(true))
-	return readingsTable{keys: keys, styles: st, table: t, sortCol: 2}
+	return readingsTable{keys: keys, styles: st, table: t, sortCol: colLine, asyncMin: asyncSortMin}
 }
 
 // SetSize sets the outer size; columns share the width.
@@ -226,9 +226,17 @@ func (st readingStats) titles() []string {
 
 // SetResult fills the table from res, whose readings st describes
 // (measureReadings), keeping the order and the selected reading.
+//
+// The order is computed here, on the UI loop (after a regrid the old order
+// does not fit the new readings); an order still being computed for the old
+// result is taken over and its outcome dropped.
 func (r readingsTable) SetResult(res *pipeline.Result, st readingStats) readingsTable {
 	sel := r.Selected()
 	r.res, r.stats = res, st
+	if p := r.pending; p != nil {
+		r.sortCol, r.desc, r.pending = p.col, p.desc, nil
+	}
+	r.sortGen++
 	return r.sortKeeping(sel)
 }
 
@@ -236,7 +244,12 @@ func (r readingsTable) SetResult(res *pipeline.Result, st readingStats) readings
 // same height on screen as before, so the eye does not lose it.
 func (r readingsTable) sortKeeping(sel int) readingsTable {
 	off := r.cursor - r.top
-	r = r.sort()
+	return r.sort().reselect(sel, off)
+}
+
+// reselect selects reading sel (if any) at screen row off, after the rows
+// were ordered anew.
+func (r readingsTable) reselect(sel, off int) readingsTable {
 	if sel >= 0 && sel < len(r.rowOf) {
 		c := int(r.rowOf[sel])
 		r.top = c - off
@@ -339,62 +352,6 @@ func (r readingsTable) status(i int) qa.Status {
 	return qa.OK
 }
 
-// rowOrder compares readings by one column, then by index, on their
-// values (never their text), so that ordering 10⁶ rows stays fast. It
-// holds only what it compares: a pointer receiver keeps each comparison
-// from copying the table.
-type rowOrder struct {
-	rs     []survey.Reading
-	names  []string
-	corr   []float64
-	status []qa.Status
-	notes  [][]string
-	col    int
-	desc   bool
-}
-
-func (r readingsTable) rowOrder() *rowOrder {
-	o := &rowOrder{rs: r.res.Survey.Readings, names: r.stats.names, col: r.sortCol, desc: r.desc}
-	if q := r.res.QA; q != nil {
-		o.corr, o.status, o.notes = q.Corrected, q.Status, q.Notes
-	}
-	return o
-}
-
-func (o *rowOrder) compare(a, b int) int {
-	rs := o.rs
-	var c int
-	switch o.col {
-	case colSource:
-		c = strings.Compare(o.name(a), o.name(b))*2 + cmp.Compare(rs[a].Line0, rs[b].Line0)
-	case colLine:
-		c = cmp.Compare(rs[a].File, rs[b].File)*2 + cmp.Compare(rs[a].Line0, rs[b].Line0)
-	case colID:
-		c = strings.Compare(rs[a].ID, rs[b].ID)
-	case colX:
-		c = cmp.Compare(rs[a].X, rs[b].X)
-	case colY:
-		c = cmp.Compare(rs[a].Y, rs[b].Y)
-	case colOriginal:
-		c = cmp.Compare(rs[a].V, rs[b].V)
-	case colCorrected:
-		c = cmp.Compare(at(o.corr, a, rs[a].V), at(o.corr, b, rs[b].V))
-	case colStatus:
-		c = cmp.Compare(at(o.status, a, qa.OK), at(o.status, b, qa.OK))
-	default:
-		c = slices.Compare(at(o.notes, a, nil), at(o.notes, b, nil))
-	}
-	if c == 0 {
-		return cmp.Compare(a, b)
-	}
-	if o.desc {
-		return -c
-	}
-	return c
-}
-
-func (o *rowOrder) name(i int) string { return at(o.names, o.rs[i].File, "") }
-
 // at returns s[i], or def when i is out of range.
 func at[T any](s []T, i int, def T) T {
 	if i >= 0 && i < len(s) {
@@ -403,26 +360,13 @@ func at[T any](s []T, i int, def T) T {
 	return def
 }
 
-// sort orders the rows by the sort column (readings already in order, as
-// they come from the files, cost one pass); the caller moves the
-// selection.
+// sort orders the rows by the sort column (readings_sort.go); the caller
+// moves the selection.
 func (r readingsTable) sort() readingsTable {
 	if r.res == nil {
 		return r
 	}
-	n := len(r.res.Survey.Readings)
-	r.order = make([]int, n)
-	for i := range r.order {
-		r.order[i] = i
-	}
-	o := r.rowOrder()
-	if !slices.IsSortedFunc(r.order, o.compare) {
-		slices.SortFunc(r.order, o.compare)
-	}
-	r.rowOf = make([]int32, n)
-	for p, i := range r.order {
-		r.rowOf[i] = int32(p)
-	}
+	r.order, r.rowOf = newSortSpec(r.res, r.stats.names, r.sortCol, r.desc).order()
 	r.table.SetRows(nil)
 	r.table.SetColumns(r.columns())
 	return r
@@ -434,14 +378,14 @@ func (r readingsTable) Update(msg tea.Msg) (readingsTable, tea.Cmd) {
 	if !ok {
 		return r, nil
 	}
-	k, sel, page := r.keys, r.Selected(), r.visibleRows()
+	k, page := r.keys, r.visibleRows()
 	switch {
 	case key.Matches(km, k.Order):
-		r.sortCol = r.nextSortColumn()
-		return r.sortKeeping(sel), nil
+		col, desc := r.wantedOrder()
+		return r.reorder(r.nextSortColumn(col), desc)
 	case key.Matches(km, k.Reverse):
-		r.desc = !r.desc
-		return r.sortKeeping(sel), nil
+		col, desc := r.wantedOrder()
+		return r.reorder(col, !desc)
 	case key.Matches(km, k.Up):
 		return r.moveTo(r.cursor - 1), nil
 	case key.Matches(km, k.Down):
@@ -460,10 +404,9 @@ func (r readingsTable) Update(msg tea.Msg) (readingsTable, tea.Cmd) {
 	return r, nil
 }
 
-// nextSortColumn returns the shown column after the sort column (the
-// marker column excepted).
-func (r readingsTable) nextSortColumn() int {
-	c := r.sortCol
+// nextSortColumn returns the shown column after column c (the marker
+// column excepted).
+func (r readingsTable) nextSortColumn(c int) int {
 	for {
 		c = c%colReason + 1
 		if c != colSource || len(r.stats.names) > 1 {
@@ -480,6 +423,9 @@ func (r readingsTable) View() string {
 	dir := map[bool]string{false: "ascending", true: "descending"}[r.desc]
 	title := st.PanelTitle.Render("Readings") + st.Label.Render(fmt.Sprintf("  %d, %d suspect, %d excluded · by %s, %s · row %d of %d",
 		n, r.stats.sus, r.stats.exc, readingColumns()[r.sortCol], dir, min(r.cursor+1, n), n))
+	if p := r.pending; p != nil {
+		title += st.Label.Render(fmt.Sprintf(" · sorting by %s…", readingColumns()[p.col]))
+	}
 	return truncate(title, r.width) + "\n" + r.table.View() + "\n" + r.detail()
 }
 
@@ -496,4 +442,42 @@ func (r readingsTable) detail() string {
 	}
 	rd := r.res.Survey.Readings[i]
 	return truncate(r.styles.Label.Render(fmt.Sprintf("%s (line %d): %s", rd.ID, rd.Line0, note)), r.width)
+}
+
+// wantedOrder returns the order last asked for: the one being computed,
+// if any, else the one on screen.
+func (r readingsTable) wantedOrder() (col int, desc bool) {
+	if p := r.pending; p != nil {
+		return p.col, p.desc
+	}
+	return r.sortCol, r.desc
+}
+
+// reorder orders the rows by column col. A large survey is ordered off the
+// UI loop: the table keeps its order on screen, noting the order under way
+// in its title, until the readingsSortedMsg of the latest request arrives
+// (onSorted).
+func (r readingsTable) reorder(col int, desc bool) (readingsTable, tea.Cmd) {
+	r.sortGen++
+	if r.res == nil || len(r.res.Survey.Readings) < r.asyncMin {
+		r.sortCol, r.desc, r.pending = col, desc, nil
+		return r.sortKeeping(r.Selected()), nil
+	}
+	r.pending = &sortRequest{gen: r.sortGen, col: col, desc: desc}
+	return r, sortReadings(newSortSpec(r.res, r.stats.names, col, desc), r.sortGen)
+}
+
+// onSorted takes an order computed off the UI loop, unless a newer one was
+// asked for since (or a new result arrived), keeping the selected reading
+// at its height on screen.
+func (r readingsTable) onSorted(msg readingsSortedMsg) readingsTable {
+	if r.pending == nil || msg.gen != r.sortGen {
+		return r // stale: dropped
+	}
+	sel, off := r.Selected(), r.cursor-r.top
+	r.sortCol, r.desc, r.pending = msg.col, msg.desc, nil
+	r.order, r.rowOf = msg.order, msg.rowOf
+	r.table.SetRows(nil)
+	r.table.SetColumns(r.columns())
+	return r.reselect(sel, off)
 }
