@@ -114,6 +114,10 @@ send x
 wait_for "exclude P00-00" 5
 send -l "smoke test"
 send Enter
+# The regrid with the exclusion starts a moment after the key reaches the
+# program, so wait for its outcome rather than for an idle status line
+# (which the screen may still show from before the key).
+wait_for "^isofield .* 1 excluded" 90
 wait_idle 90
 screen | head -1 | grep -q "1 excluded" || fail "status does not count the exclusion"
 grep -q "smoke test" "$work/yard.csv.isofield.json" || fail "session file lacks the edit"
@@ -127,8 +131,8 @@ send -l "1000"
 send Enter
 sleep 0.5
 send Escape
+wait_for "(^|[^0-9])1000 … 2000" 90
 wait_idle 90
-wait_for "(^|[^0-9])1000 … 2000" 5
 
 # Quit: the program ends cleanly and the terminal leaves the alternate
 # screen.
