@@ -80,7 +80,7 @@ func (l lattice) assign(ds *dataset, ix *pointIndex, lf *localFit, delta float64
 	var next atomic.Int64
 	parallelRange(2*l.nb, func(_, _ int) {
 		var buf, wide []int32
-		ext := extender{delta: delta}
+		ext := extender{delta: delta, steps: extendSteps()}
 		for {
 			b := int(next.Add(1) - 1)
 			if b >= l.nb {
@@ -334,6 +334,7 @@ const (
 // reaches one or two lines further each side (interp/BENCHMARKS.md).
 type extender struct {
 	delta float64
+	steps int // radius steps up to extendMax (extendSteps)
 	cand  []int32
 	d2    []float64 // squared distance of each candidate from the centre
 	sq    []int32   // square of each candidate
@@ -355,7 +356,7 @@ func (e *extender) extend(ix *pointIndex, ds *dataset, cx, cy, rad, frad float64
 	if !(e.delta > 0) {
 		return idx, frad
 	}
-	steps := extendSteps()
+	steps := e.steps
 	for st, f := 0, frad; st <= steps; st, f = st+1, f*extendStep {
 		e.edge[st] = f * f
 	}
@@ -381,18 +382,18 @@ func (e *extender) extend(ix *pointIndex, ds *dataset, cx, cy, rad, frad float64
 			e.gen = 0
 		}
 		e.gen++
-		if pre != nil && reach == extendFirst {
-			e.cand = append(e.cand[:0], pre...)
-		} else {
+		cand := pre
+		if cand == nil || reach != extendFirst {
 			e.cand = ix.within(e.cand[:0], cx, cy, r)
+			cand = e.cand
 		}
-		n := len(e.cand)
+		n := len(cand)
 		if cap(e.d2) < n {
 			e.d2, e.sq = make([]float64, n, 2*n), make([]int32, n, 2*n)
 		}
 		e.d2, e.sq = e.d2[:n], e.sq[:n]
 		inner := 0
-		for t, i := range e.cand {
+		for t, i := range cand {
 			dx, dy := ds.x[i]-cx, ds.y[i]-cy
 			// |dx|, |dy| ≤ r ≤ (k−1)·delta, so the conversions truncate
 			// positive numbers, which is the floor.
@@ -404,7 +405,7 @@ func (e *extender) extend(ix *pointIndex, ds *dataset, cx, cy, rad, frad float64
 				inner++
 			}
 		}
-		for t := range e.cand {
+		for t := range cand {
 			if e.d2[t] <= rad2 {
 				continue
 			}
@@ -417,7 +418,7 @@ func (e *extender) extend(ix *pointIndex, ds *dataset, cx, cy, rad, frad float64
 			}
 		}
 		e.count = [32]int{}
-		for t := range e.cand {
+		for t := range cand {
 			if e.best[e.sq[t]] == int32(t) {
 				e.count[stepOf(e.d2[t])]++
 			}
@@ -439,7 +440,7 @@ func (e *extender) extend(ix *pointIndex, ds *dataset, cx, cy, rad, frad float64
 		}
 		out := idx[:0]
 		far := 0.0
-		for t, i := range e.cand {
+		for t, i := range cand {
 			if d := e.d2[t]; d <= rad2 || (e.best[e.sq[t]] == int32(t) && d <= e.edge[upTo]) {
 				out = append(out, i)
 				far = max(far, d)

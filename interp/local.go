@@ -77,12 +77,14 @@ type localPlan struct {
 // of a second fit).
 const localLOOBelow = 20000
 
-func fitLocalModel(ctx context.Context, ds *dataset, opt Options, progress func(int, int)) (*Model, error) {
+// fitLocalModel fits the partition of unity to ds, whose readings ix
+// indexes (dataset.spatialOrder makes both).
+func fitLocalModel(ctx context.Context, ds *dataset, ix *pointIndex, opt Options, progress func(int, int)) (*Model, error) {
 	shape := opt.Shape
 	if shape == 0 {
 		shape = defaultShape(opt.Kernel, ds.h)
 	}
-	lf, lat, err := layoutLocal(ds, opt.Kernel)
+	lf, lat, err := layoutLocal(ds, ix, opt.Kernel)
 	if err != nil {
 		return nil, err
 	}
@@ -135,15 +137,15 @@ func rmsFinite(e []float64) float64 {
 	return math.Sqrt(s / float64(n))
 }
 
-// layoutLocal lays out the patches over the readings for kernel k. The
+// layoutLocal lays out the patches over the readings of ds, indexed by ix,
+// for kernel k. The
 // polyharmonic kernels (thin-plate, cubic), which have no shape and no
 // scale, reach past crowded readings (extender); the others keep the
 // plain patches, whose shape was chosen for the readings' own spacing
 // (on Franke's function the thinning halved the thin-plate error at some
 // sizes but doubled the Gaussian's).
-func layoutLocal(ds *dataset, k Kernel) (*localFit, lattice, error) {
+func layoutLocal(ds *dataset, ix *pointIndex, k Kernel) (*localFit, lattice, error) {
 	lat := newLattice(ds)
-	ix := newPointIndex(ds.x, ds.y, 4)
 	lf := &localFit{cx: ds.cx, cy: ds.cy, s: ds.s}
 	delta := 0.0
 	if k == ThinPlate || k == Cubic {

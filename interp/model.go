@@ -67,8 +67,9 @@ func Fit(ctx context.Context, xs, ys, vs []float64, opt Options) (*Model, error)
 		note = fmt.Sprintf("%d readings are too few for the local method; the global fit was used", len(ds.x))
 	}
 	if method == Local {
-		ds = ds.spatialOrder()
-		m, err = fitLocalModel(ctx, ds, opt, progress)
+		var ix *pointIndex
+		ds, ix = ds.spatialOrder()
+		m, err = fitLocalModel(ctx, ds, ix, opt, progress)
 	} else {
 		m, err = fitGlobalModel(ctx, ds, opt, progress)
 	}

@@ -176,11 +176,13 @@ func (d *dataset) checkCollinear() error {
 
 // spatialOrder returns a copy of d with the merged readings in the cell
 // order of a bucket grid (rows of cells, south to north), the group
-// mapping renumbered to match. The partition of unity reads the readings
-// of each patch many times over; in input order they lie scattered over
-// memory (a million readings take 24 MB), in cell order a patch's
-// readings lie in a few short runs. The fit is the same up to rounding.
-func (d *dataset) spatialOrder() *dataset {
+// mapping renumbered to match, and that grid as an index of the reordered
+// readings (about four per cell, as the partition of unity's layout
+// wants). The partition of unity reads the readings of each patch many
+// times over; in input order they lie scattered over memory (a million
+// readings take 24 MB), in cell order a patch's readings lie in a few
+// short runs. The fit is the same up to rounding.
+func (d *dataset) spatialOrder() (*dataset, *pointIndex) {
 	ix := newPointIndex(d.x, d.y, 4)
 	nd := *d
 	n := len(d.x)
@@ -195,5 +197,11 @@ func (d *dataset) spatialOrder() *dataset {
 	for i, g := range d.group {
 		nd.group[i] = inv[g]
 	}
-	return &nd
+	// The index now describes the reordered readings: reading k is the
+	// k-th in cell order.
+	ix.xs, ix.ys = nd.x, nd.y
+	for k := range ix.idx {
+		ix.idx[k] = int32(k)
+	}
+	return &nd, ix
 }
