@@ -222,7 +222,7 @@ func (lf *localFit) fitPatch(j int, ds *dataset, plan localPlan, sys *smallSyste
 	copy(lf.coef[p.lo:p.hi], sol[:len(x)])
 	copy(p.d[:], sol[len(x):])
 	if lf.ej != nil {
-		lf.patchErrors(p, sys)
+		lf.storeErrors(lf.ej, p, sys)
 	}
 	return cond, nil
 }

@@ -24,20 +24,14 @@ func (lf *localFit) leaveOneOut(ds *dataset, plan localPlan) ([]float64, error) 
 	return lf.blendErrors(ds, lf.ej), nil
 }
 
-// patchErrors stores the patch leave-one-out errors e_jk = c_jk/(A_j⁻¹)_kk
-// of patch p, whose system sys was just factorised and solved (the
-// factorisation is consumed).
+// storeErrors writes into ej the patch leave-one-out errors
+// e_jk = c_jk/(A_j⁻¹)_kk of patch p, whose system sys was just factorised
+// and solved (lf.coef holds its coefficients).
 //
 // Only the readings inside the patch's weight disk enter the blend
 // (blendErrors), about a quarter of the patch's readings with the fit
 // radius twice the weight radius; the others get NaN, and their entries of
 // A_j⁻¹ are never computed.
-func (lf *localFit) patchErrors(p *patch, sys *smallSystem) {
-	lf.storeErrors(lf.ej, p, sys)
-}
-
-// storeErrors writes patch p's leave-one-out errors into ej from sys,
-// which holds p's factorised system.
 func (lf *localFit) storeErrors(ej []float64, p *patch, sys *smallSystem) {
 	m := int(p.hi - p.lo)
 	sys.work = grow(sys.work, m)
